@@ -1,0 +1,7 @@
+export default function Loading() {
+  return (
+    <div role="status" aria-live="polite" className="animate-pulse text-ink-faint">
+      Loading…
+    </div>
+  );
+}

@@ -1,0 +1,11 @@
+import Link from "next/link";
+
+export default function NotFound() {
+  return (
+    <main className="mx-auto max-w-lg p-10">
+      <h1>Not found</h1>
+      <p className="mt-2 text-ink-soft">There is nothing at this address. It may have been archived or the link is mistyped.</p>
+      <Link className="btn-quiet mt-4" href="/">Back to today&apos;s plan</Link>
+    </main>
+  );
+}

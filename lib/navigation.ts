@@ -1,0 +1,20 @@
+import type { Role } from "@/db/schema";
+
+export interface NavItem {
+  href: string;
+  label: string;
+  /** Roles that see the item; admin sees everything. */
+  roles: readonly Role[] | "all";
+}
+
+// Only sections that exist are listed; each capability adds its entry when its screen lands.
+export const navItems: NavItem[] = [
+  { href: "/", label: "Today", roles: "all" },
+  { href: "/admin/users", label: "Users", roles: ["admin"] },
+  { href: "/admin/outbox", label: "Mail outbox", roles: ["admin"] },
+  { href: "/settings", label: "Settings", roles: "all" },
+];
+
+export function navFor(role: Role): NavItem[] {
+  return navItems.filter((i) => i.roles === "all" || role === "admin" || i.roles.includes(role));
+}

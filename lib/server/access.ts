@@ -1,0 +1,39 @@
+import type { Role } from "@/db/schema";
+
+export const ROLES: readonly Role[] = ["admin", "manager", "supervisor", "engineer", "purchaser", "operator"];
+export type Method = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
+
+/** "public": no session needed; "signed-in": any role; otherwise the roles allowed (admin always is). */
+export type Access = "public" | "signed-in" | readonly Role[];
+
+const ANY: Access = "signed-in";
+
+/*
+ * The one declared access table. Every route handler under app/api and every server action
+ * has its row here; tests/api/access-table.test.ts walks the files and fails on anything missing,
+ * and drives every row anonymously and with each role.
+ */
+export const apiAccess: Record<string, Partial<Record<Method, Access>>> = {
+  "/api/health": { GET: "public" },
+  "/api/auth/sign-in": { POST: "public" },
+  "/api/auth/sign-out": { POST: "public" },
+  "/api/auth/accept-invite": { POST: "public" },
+  "/api/auth/request-reset": { POST: "public" },
+  "/api/auth/reset-password": { POST: "public" },
+  "/api/me": { GET: ANY, PATCH: ANY },
+  "/api/admin/users": { GET: ["admin"], POST: ["admin"] },
+  "/api/admin/users/[id]": { PATCH: ["admin"] },
+  "/api/admin/outbox": { GET: ["admin"] },
+  "/api/admin/settings": { GET: ANY, PUT: ["admin"] },
+};
+
+export const actionAccess: Record<string, Access> = {
+  "app/(app)/settings/actions.ts#saveUnitSystem": ANY,
+};
+
+export function allows(access: Access, role: Role | null): boolean {
+  if (access === "public") return true;
+  if (role === null) return false;
+  if (access === "signed-in" || role === "admin") return true;
+  return access.includes(role);
+}
