@@ -161,12 +161,12 @@ function InviteForm({ onInvited }: { onInvited: (email: string) => void }) {
       >
         <TextField label="E-mail" name="email" type="email" value={v.email} error={fields.email} onChange={(s) => setV({ ...v, email: s })} />
         <TextField label="Name" name="name" value={v.name} error={fields.name} onChange={(s) => setV({ ...v, name: s })} />
-        <label className="block">
-          <span className="label">Role</span>
-          <select className="field" value={v.role} onChange={(e) => setV({ ...v, role: e.target.value })}>
+        <div>
+          <label className="label" htmlFor="invite-role">Role</label>
+          <select id="invite-role" className="field" value={v.role} onChange={(e) => setV({ ...v, role: e.target.value })}>
             {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
           </select>
-        </label>
+        </div>
         <button className="btn-primary" disabled={busy}>Send invitation</button>
       </form>
       {error && !Object.keys(fields).length && <p role="alert" className="field-error">{error}</p>}
