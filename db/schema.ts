@@ -55,6 +55,142 @@ export interface MailOutboxTable {
   received_at: number;
 }
 
+export interface CoatingsTable {
+  id: Generated<number>;
+  code: string;
+  name: string;
+  kind: "powder" | "e-coat";
+  chemistry: string;
+  colour_name: string;
+  swatch_hex: string;
+  specific_gravity: number | null;
+  volume_solids_fraction: number | null;
+  weight_solids_fraction: number | null;
+  film_density_g_per_cm3: number | null;
+  film_min_um: number;
+  film_max_um: number;
+  price_per_kg: number;
+  container_kind: "box" | "drum";
+  container_kg: number;
+  supplier_name: string;
+  supplier_email: string;
+  lead_time_days: number;
+  shelf_life_months: number;
+  reorder_point_kg: number;
+  archived_at: number | null;
+  created_at: number;
+  updated_at: number;
+}
+
+export interface CoatingCurePointsTable {
+  id: Generated<number>;
+  coating_id: number;
+  metal_temp_c: number;
+  hold_min: number;
+}
+
+export interface CoatingLotsTable {
+  id: Generated<number>;
+  coating_id: number;
+  lot_number: string;
+  /** epoch seconds at 00:00 UTC of the day */
+  received_at: number;
+  expires_at: number;
+  kg_on_hand: number;
+  created_at: number;
+}
+
+export interface LinesTable {
+  id: Generated<number>;
+  name: string;
+  kind: "conveyor" | "batch";
+  notes: string;
+  hourly_cost: number;
+  window_width_mm: number;
+  window_height_mm: number;
+  window_depth_mm: number;
+  max_load_kg: number;
+  line_speed_min_m_per_min: number | null;
+  line_speed_max_m_per_min: number | null;
+  line_speed_nominal_m_per_min: number | null;
+  carrier_pitch_m: number | null;
+  interior_width_mm: number | null;
+  interior_height_mm: number | null;
+  interior_depth_mm: number | null;
+  racks_per_load: number | null;
+  air_temp_c: number | null;
+  heat_transfer_coefficient_w_per_m2k: number | null;
+  load_min: number | null;
+  unload_min: number | null;
+  archived_at: number | null;
+  created_at: number;
+  updated_at: number;
+}
+
+export interface LineStagesTable {
+  id: Generated<number>;
+  line_id: number;
+  position: number;
+  name: string;
+  kind: "clean" | "rinse" | "conversion" | "e-coat" | "dry-off" | "powder-booth" | "cure-oven" | "cool";
+  length_m: number;
+  temp_c: number | null;
+  heat_transfer_coefficient_w_per_m2k: number | null;
+  colour_change_min: number | null;
+}
+
+/** A measured STL upload; the file itself lives under the data folder as stored_name. */
+export interface MeshesTable {
+  id: string;
+  file_name: string;
+  stored_name: string;
+  unit: "mm" | "in";
+  size_bytes: number;
+  format: "binary" | "ascii";
+  triangle_count: number;
+  area_m2: number;
+  volume_m3: number;
+  bbox_x_mm: number;
+  bbox_y_mm: number;
+  bbox_z_mm: number;
+  closed: number;
+  created_by: string | null;
+  created_at: number;
+}
+
+/**
+ * A part: area_m2 is the outside coated area (before masking), inside_area_m2 what only e-coat
+ * reaches; length/width/height are the bounding box (a mesh's x, y, z). thickness_mm is the
+ * section thickness that sets heat-up.
+ */
+export interface PartsTable {
+  id: string;
+  number: string;
+  name: string;
+  customer: string;
+  material: "steel" | "stainless" | "aluminium" | "other";
+  density_kg_per_m3: number;
+  thickness_mm: number;
+  mass_kg: number;
+  /** added by 2026-12-02-parts-extra: how mass_kg was found */
+  mass_origin: Generated<"volume" | "sheet" | "entered">;
+  area_m2: number;
+  inside_area_m2: number;
+  masked_area_m2: number;
+  area_origin: "mesh" | "template" | "formula" | "manual";
+  template_id: string | null;
+  dimensions_json: string | null;
+  formula: string | null;
+  length_mm: number;
+  width_mm: number;
+  height_mm: number;
+  mesh_id: string | null;
+  notes: string;
+  archived: number;
+  created_at: number;
+  updated_at: number;
+}
+
 export interface Database {
   users: UsersTable;
   sessions: SessionsTable;
@@ -62,6 +198,13 @@ export interface Database {
   sign_in_failures: SignInFailuresTable;
   plant_settings: PlantSettingsTable;
   mail_outbox: MailOutboxTable;
+  coatings: CoatingsTable;
+  coating_cure_points: CoatingCurePointsTable;
+  coating_lots: CoatingLotsTable;
+  lines: LinesTable;
+  line_stages: LineStagesTable;
+  meshes: MeshesTable;
+  parts: PartsTable;
 }
 
 export type User = Selectable<UsersTable>;

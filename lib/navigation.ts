@@ -10,6 +10,10 @@ export interface NavItem {
 // Only sections that exist are listed; each capability adds its entry when its screen lands.
 export const navItems: NavItem[] = [
   { href: "/", label: "Today", roles: "all" },
+  { href: "/calculators", label: "Calculators", roles: "all" },
+  { href: "/racking", label: "Racking", roles: ["engineer", "supervisor", "manager"] },
+  { href: "/coatings", label: "Coatings", roles: "all" },
+  { href: "/lines", label: "Lines", roles: "all" },
   { href: "/admin/users", label: "Users", roles: ["admin"] },
   { href: "/admin/outbox", label: "Mail outbox", roles: ["admin"] },
   { href: "/settings", label: "Settings", roles: "all" },

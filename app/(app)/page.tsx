@@ -3,6 +3,7 @@ import { requirePageUser } from "@/lib/server/guard";
 import { plantSettings } from "@/lib/server/plant";
 import { navFor } from "@/lib/navigation";
 import type { Role } from "@/db/schema";
+import { StockAttention } from "@/components/coatings/stock-attention";
 
 export const metadata = { title: "Today" };
 
@@ -36,6 +37,7 @@ export default async function HomePage() {
           ))}
         </ul>
       </section>
+      {(user.role === "purchaser" || user.role === "admin") && <StockAttention unitSystem={user.unitSystem} />}
     </div>
   );
 }

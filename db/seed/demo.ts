@@ -2,6 +2,7 @@ import crypto from "node:crypto";
 import { hash } from "@node-rs/argon2";
 import type { Db } from "../index";
 import type { Role } from "../schema";
+import { seedCoatingsAndLines } from "./coatings-lines";
 
 /*
  * The demo scenario: Bramblecote Steelworks, an invented fabricator of steel outdoor goods.
@@ -46,6 +47,7 @@ export async function seedDemo(db: Db): Promise<boolean> {
         })),
       )
       .execute();
+    await seedCoatingsAndLines(trx, t);
   });
   return true;
 }

@@ -25,6 +25,21 @@ export const apiAccess: Record<string, Partial<Record<Method, Access>>> = {
   "/api/admin/users/[id]": { PATCH: ["admin"] },
   "/api/admin/outbox": { GET: ["admin"] },
   "/api/admin/settings": { GET: ANY, PUT: ["admin"] },
+  // Planning is read-only arithmetic on the numbers sent: any signed-in role may ask.
+  "/api/rack/plan": { POST: ANY },
+  "/api/calc/powder": { POST: ANY },
+  "/api/calc/ecoat": { POST: ANY },
+  "/api/calc/line": { POST: ANY },
+  "/api/calc/cure": { POST: ANY },
+  "/api/calc/film": { POST: ANY },
+  "/api/openapi.json": { GET: ANY },
+  "/api/coatings": { GET: ANY, POST: ["purchaser"] },
+  "/api/coatings/[id]": { GET: ANY, PUT: ["purchaser"], DELETE: ["purchaser"] },
+  "/api/coatings/[id]/lots": { POST: ["purchaser"] },
+  "/api/lines": { GET: ANY, POST: ["manager"] },
+  "/api/lines/[id]": { GET: ANY, PUT: ["manager"], DELETE: ["manager"] },
+  "/api/lines/[id]/timeline": { GET: ANY },
+  "/api/lines/[id]/cure-check": { POST: ANY },
 };
 
 export const actionAccess: Record<string, Access> = {

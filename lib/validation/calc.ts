@@ -4,7 +4,7 @@
  * Upper bounds keep results finite and catch unit mistakes; they are not limits of real plants.
  */
 import { z } from "zod";
-import { describeRange, type NumericRange } from "@/lib/coating-math/errors";
+import { DomainError, describeRange, type NumericRange } from "@/lib/coating-math/errors";
 
 const MAX_AREA_M2 = 1_000_000;
 const MAX_FILM_UM = 5_000;
@@ -190,3 +190,131 @@ export type EcoatInputRaw = z.input<typeof ecoatInputSchema>;
 export type LineInputRaw = z.input<typeof lineInputSchema>;
 export type CureInputRaw = z.input<typeof cureInputSchema>;
 export type FilmInputRaw = z.input<typeof filmInputSchema>;
+
+// ---------------------------------------------------------------------------------------------
+// Output schemas of the calculator routes. They document the responses (GET /api/openapi.json)
+// and guard them: zod numbers reject NaN and ±Infinity, so a result that overflowed becomes a
+// 400 naming the input at fault (see `checkedResult`) instead of a `null` in the JSON.
+
+const num = (description: string) => z.number().describe(description);
+const sentences = (description: string) => z.array(z.string()).describe(description);
+
+export const powderResultSchema = z.object({
+  theoreticalCoverageM2PerKg: num("m² covered by 1 kg of powder at the film build, 1000 / (SG × filmUm)"),
+  materialUtilization: num("share of sprayed powder that ends on the parts, with reclaim resprayed: FPE / (1 − r(1 − FPE))"),
+  practicalCoverageM2PerKg: num("theoretical coverage × material utilisation"),
+  powderKg: num("powder needed for all parts"),
+  powderKgPerPart: num("powder needed for one part"),
+  costTotal: num("powderKg × pricePerKg, when a price is given").optional(),
+});
+
+export const ecoatResultSchema = z.object({
+  depositedSolidsKg: num("cured film mass on all parts, ρ × DFT × area × parts"),
+  depositedSolidsKgPerPart: num("cured film mass on one part"),
+  chargeC: num("charge to deposit the film on all parts, mass / coulombic yield"),
+  chargeCPerPart: num("charge for one part"),
+  chargePerAreaCPerM2: num("charge per coated area"),
+  averageCurrentA: num("average rectifier current at partsPerHour").optional(),
+  solidsKgPerHour: num("solids deposited per hour at partsPerHour").optional(),
+});
+
+export const lineResultSchema = z.object({
+  carriersPerHour: num("line speed × 60 / carrier pitch"),
+  partsPerHour: num("carriers/h × parts per carrier × loaded fraction"),
+  ovenDwellMin: num("oven path length / line speed"),
+  maxLineSpeedForDwellMPerMin: num("fastest line speed that still gives requiredDwellMin").optional(),
+  dwellMarginMin: num("ovenDwellMin − requiredDwellMin; negative when the line runs too fast").optional(),
+});
+
+export const cureResultSchema = z.object({
+  timeConstantMin: num("ρ c (thickness/2) / h"),
+  heatUpMin: num("time for the metal to reach the target temperature, τ ln((Tair − T0)/(Tair − Ttarget))"),
+  totalMin: num("heat-up + hold"),
+  biotNumber: num("h (thickness/2) / k; the lumped model holds below 0.1"),
+  dwellMarginMin: num("ovenDwellMin − totalMin, when ovenDwellMin is given").optional(),
+  warnings: sentences("limits of the model met by these inputs"),
+});
+
+const filmCommon = {
+  pass: z.boolean().describe("true when every acceptance rule is met"),
+  reasons: sentences("why the film fails, one sentence each; empty when it passes"),
+  warnings: sentences("departures from the procedure that do not fail the film by themselves"),
+};
+
+export const filmResultSchema = z.discriminatedUnion("rule", [
+  z.object({
+    rule: z.literal("sspc-pa2"),
+    ...filmCommon,
+    spotsUm: z.array(z.array(z.number())).describe("spot measurements (mean of the gauge readings), per area"),
+    areasUm: z.array(z.number()).describe("area measurements (mean of the spots)"),
+  }),
+  z.object({
+    rule: z.literal("iso19840"),
+    ...filmCommon,
+    meanUm: num("mean of all readings"),
+    fractionBelowNominal: num("share of readings below the nominal thickness"),
+    readingCount: z.number().int().describe("number of readings"),
+  }),
+]);
+
+export type PowderResultBody = z.infer<typeof powderResultSchema>;
+export type EcoatResultBody = z.infer<typeof ecoatResultSchema>;
+export type LineResultBody = z.infer<typeof lineResultSchema>;
+export type CureResultBody = z.infer<typeof cureResultSchema>;
+export type FilmResultBody = z.infer<typeof filmResultSchema>;
+
+/** For each output field, the input most likely at fault when it cannot be computed. */
+export const resultBlame = {
+  powder: {
+    theoreticalCoverageM2PerKg: "specificGravity",
+    materialUtilization: "firstPassEfficiency",
+    practicalCoverageM2PerKg: "specificGravity",
+    powderKg: "firstPassEfficiency",
+    powderKgPerPart: "firstPassEfficiency",
+    costTotal: "pricePerKg",
+  },
+  ecoat: {
+    depositedSolidsKg: "areaM2",
+    depositedSolidsKgPerPart: "areaM2",
+    chargeC: "coulombicYieldMgPerC",
+    chargeCPerPart: "coulombicYieldMgPerC",
+    chargePerAreaCPerM2: "coulombicYieldMgPerC",
+    averageCurrentA: "partsPerHour",
+    solidsKgPerHour: "partsPerHour",
+  },
+  line: {
+    carriersPerHour: "carrierPitchM",
+    partsPerHour: "carrierPitchM",
+    ovenDwellMin: "lineSpeedMPerMin",
+    maxLineSpeedForDwellMPerMin: "requiredDwellMin",
+    dwellMarginMin: "requiredDwellMin",
+  },
+  cure: {
+    timeConstantMin: "heatTransferCoefficientWPerM2K",
+    heatUpMin: "targetMetalTempC",
+    totalMin: "holdMin",
+    biotNumber: "thermalConductivityWPerMK",
+    dwellMarginMin: "ovenDwellMin",
+  },
+  film: { spotsUm: "areas", areasUm: "areas", meanUm: "readingsUm", fractionBelowNominal: "readingsUm" },
+} as const satisfies Record<string, Record<string, string>>;
+
+/**
+ * Parses a calculation's result with its output schema. A non-finite number (an overflow from
+ * inputs that are each in range) throws a DomainError naming the input most likely at fault,
+ * which the route wrapper answers with a 400; the form shows it on that field.
+ */
+export function checkedResult<S extends z.ZodType>(
+  schema: S,
+  result: unknown,
+  blame: Readonly<Record<string, string>>,
+): z.output<S> {
+  const parsed = schema.safeParse(result);
+  if (parsed.success) return parsed.data;
+  const output = String(parsed.error.issues[0]?.path[0] ?? "result");
+  const field = blame[output] ?? output;
+  throw new DomainError(
+    field,
+    `${field} is too extreme: the ${output} cannot be computed as a finite number from these inputs.`,
+  );
+}
