@@ -1,6 +1,6 @@
 "use client";
 import { useState } from "react";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { PowderCalculator } from "./powder-calculator";
 import { EcoatCalculator } from "./ecoat-calculator";
 import { LineCalculator } from "./line-calculator";

@@ -1,6 +1,6 @@
 "use client";
 import { cureHeatUp } from "@/lib/coating-math/cure";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { checkedResult, cureInputSchema, cureResultSchema, resultBlame } from "@/lib/validation/calc";
 import type { CureResult } from "@/app/api/calc/cure/route";
 import { CalculatorSection, HowComputed, NumberField, Results, SafetyNote, type ResultRow } from "./calculator-parts";

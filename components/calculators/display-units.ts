@@ -1,7 +1,7 @@
 /**
  * What the calculator screen shows and accepts for each kind of number, in either unit system.
- * Quantities units.ts knows go through its fromDisplay/toDisplay; the few extra compound units
- * below go through its mathjs-backed convert(), never a typed factor.
+ * Quantities display-units.ts knows go through its fromDisplay/toDisplay; the few extra compound
+ * units below go through its convert(), whose factors are mathjs's (unit-table.generated.ts).
  */
 import {
   convert,
@@ -11,7 +11,7 @@ import {
   unitLabel,
   type QuantityKind,
   type UnitSystem,
-} from "@/lib/coating-math/units";
+} from "@/lib/coating-math/display-units";
 
 interface ExtraUnit {
   /** mathjs unit of the API value */

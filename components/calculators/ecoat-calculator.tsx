@@ -1,6 +1,6 @@
 "use client";
 import { ecoatEstimate } from "@/lib/coating-math/ecoat";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { checkedResult, ecoatInputSchema, ecoatResultSchema, resultBlame } from "@/lib/validation/calc";
 import type { EcoatResult } from "@/app/api/calc/ecoat/route";
 import { CalculatorSection, HowComputed, NumberField, Results, SafetyNote, type ResultRow } from "./calculator-parts";

@@ -11,7 +11,7 @@ import {
   PA2_SPOTS_PER_AREA,
   ISO19840_LOW_FRACTION,
 } from "@/lib/coating-math/film";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { checkedResult, filmInputSchema, filmResultSchema, powderInputSchema, resultBlame } from "@/lib/validation/calc";
 import type { FilmResult } from "@/app/api/calc/film/route";
 import { CalculatorSection, HowComputed, NumberField, Results, type ResultRow } from "./calculator-parts";

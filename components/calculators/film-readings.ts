@@ -3,8 +3,8 @@
  * (cells split by tab, comma, semicolon or spaces), a blank line between areas, an optional
  * header row. Every cell that is not a reading is reported with its line and position.
  */
-import type { UnitSystem } from "@/lib/coating-math/units";
-import { formatSignificant } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
+import { formatSignificant } from "@/lib/coating-math/display-units";
 import { parseDecimal, shownToApi, apiToShown } from "./display-units";
 
 export interface SpotReadings {

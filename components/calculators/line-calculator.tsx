@@ -1,6 +1,6 @@
 "use client";
 import { lineThroughput } from "@/lib/coating-math/line";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { checkedResult, lineInputSchema, lineResultSchema, resultBlame } from "@/lib/validation/calc";
 import type { LineResult } from "@/app/api/calc/line/route";
 import { CalculatorSection, HowComputed, NumberField, Results, type ResultRow } from "./calculator-parts";

@@ -1,6 +1,6 @@
 "use client";
 import { powderEstimate } from "@/lib/coating-math/powder";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { checkedResult, powderInputSchema, powderResultSchema, resultBlame } from "@/lib/validation/calc";
 import type { PowderResult } from "@/app/api/calc/powder/route";
 import { CalculatorSection, HowComputed, NumberField, Results, SafetyNote, type ResultRow } from "./calculator-parts";

@@ -1,6 +1,6 @@
 import type { z } from "zod";
 import { DomainError } from "@/lib/coating-math/errors";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { fieldMessages, presentValues, type FieldSpec } from "./use-unit-fields";
 
 export interface CalculatorRun<K extends string, R> {

@@ -1,7 +1,7 @@
 "use client";
 import { useState } from "react";
 import type { z } from "zod";
-import { formatSignificant, type UnitSystem } from "@/lib/coating-math/units";
+import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 import { apiToShown, inputText, parseDecimal, shownToApi, unitText, type DisplayKind } from "./display-units";
 
 export interface FieldSpec {

@@ -6,7 +6,7 @@ import useSWR from "swr";
 import { FetchError, sendJson } from "@/lib/fetcher";
 import type { CoatingView, UsageRef } from "@/lib/server/coatings";
 import { interpolateCureSchedule } from "@/lib/coating-math/cure";
-import { formatSignificant, type UnitSystem } from "@/lib/coating-math/units";
+import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 import { CHEMISTRY_LABELS } from "@/lib/validation/coatings";
 import { TextField } from "@/components/ui/text-field";
 import { money, parse, show, toShown, unitOf } from "@/components/lines/unit-draft";

@@ -4,7 +4,7 @@ import { useMemo, useState } from "react";
 import useSWR from "swr";
 import type { CoatingsList } from "@/app/api/coatings/route";
 import type { CoatingView } from "@/lib/server/coatings";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { CHEMISTRY_LABELS } from "@/lib/validation/coatings";
 import { money, show, unitOf, toShown } from "@/components/lines/unit-draft";
 import { StockMarks, Swatch } from "./stock-marks";

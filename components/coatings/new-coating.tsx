@@ -1,6 +1,6 @@
 "use client";
 import { useRouter } from "next/navigation";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { CoatingEditor } from "./coating-editor";
 
 export function NewCoating({ unitSystem, currency }: { unitSystem: UnitSystem; currency: string }) {

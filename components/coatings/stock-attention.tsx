@@ -2,7 +2,7 @@
 import Link from "next/link";
 import useSWR from "swr";
 import type { CoatingsList } from "@/app/api/coatings/route";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { show } from "@/components/lines/unit-draft";
 import { StockMarks, Swatch } from "./stock-marks";
 

@@ -6,7 +6,7 @@ import type { CoatingsList } from "@/app/api/coatings/route";
 import type { CureCheckResponse } from "@/app/api/lines/[id]/cure-check/route";
 import type { CureCheckView, LineView } from "@/lib/server/lines";
 import { APPLYING_STAGE } from "@/lib/lines/stages";
-import { formatSignificant, type UnitSystem } from "@/lib/coating-math/units";
+import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 import { TextField } from "@/components/ui/text-field";
 import { draft, parse, show, unitOf } from "./unit-draft";
 

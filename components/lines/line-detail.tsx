@@ -8,7 +8,7 @@ import type { ConveyorLineView, LineView } from "@/lib/server/lines";
 import type { UsageRef } from "@/lib/server/coatings";
 import { lineTimeline } from "@/lib/lines/timeline";
 import { STAGE_KIND_LABELS, type StageKind } from "@/lib/lines/stages";
-import { formatSignificant, type UnitSystem } from "@/lib/coating-math/units";
+import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 import { CureCheckPanel } from "./cure-check-panel";
 import { LineTimelineChart } from "./line-timeline";
 import { draft, money, parse, show, unitOf } from "./unit-draft";

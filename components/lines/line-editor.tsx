@@ -4,7 +4,7 @@ import { useState } from "react";
 import { FetchError, sendJson } from "@/lib/fetcher";
 import type { LineView, StageView } from "@/lib/server/lines";
 import { HEATED_STAGE_KINDS, OVEN_STAGE_KINDS, STAGE_KIND_LABELS, STAGE_KINDS, type StageKind } from "@/lib/lines/stages";
-import type { UnitSystem } from "@/lib/coating-math/units";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { TextField } from "@/components/ui/text-field";
 import { draft, parse, parsePlain, unitOf, type UnitKind } from "./unit-draft";
 

@@ -1,7 +1,7 @@
 "use client";
 import type { LineTimeline } from "@/lib/lines/timeline";
 import { STAGE_KIND_LABELS, STAGE_KINDS } from "@/lib/lines/stages";
-import { formatSignificant, type UnitSystem } from "@/lib/coating-math/units";
+import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 import { show } from "./unit-draft";
 import { STAGE_COLOURS } from "./stage-style";
 

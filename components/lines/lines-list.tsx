@@ -4,7 +4,7 @@ import { useState } from "react";
 import useSWR from "swr";
 import type { LinesList } from "@/app/api/lines/route";
 import type { LineView } from "@/lib/server/lines";
-import { formatSignificant, type UnitSystem } from "@/lib/coating-math/units";
+import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 import { money, show } from "./unit-draft";
 import { dims } from "./line-detail";
 

@@ -1,8 +1,8 @@
 /**
  * Numbers on the coatings and lines screens, shown and typed in the user's unit system. Stored
- * values are metric; every conversion goes through mathjs (lib/coating-math/units.ts).
+ * values are metric; conversions use mathjs's factors (lib/coating-math/display-units.ts).
  */
-import { convert, formatSignificant, type UnitSystem } from "@/lib/coating-math/units";
+import { convert, formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 
 interface UnitPair {
   /** mathjs unit of the stored (API) value */

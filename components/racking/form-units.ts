@@ -1,6 +1,6 @@
 // Form fields hold what the user typed, in their display units; the API takes metric values.
 
-import { formatSignificant, fromDisplay, toDisplay, unitLabel, type QuantityKind, type UnitSystem } from "@/lib/coating-math/units";
+import { formatSignificant, fromDisplay, toDisplay, unitLabel, type QuantityKind, type UnitSystem } from "@/lib/coating-math/display-units";
 
 /** A metric value as the text a field starts with, in `system` (4 significant figures). */
 export function fieldText(kind: QuantityKind | null, metricValue: number, system: UnitSystem): string {

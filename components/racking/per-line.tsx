@@ -3,7 +3,7 @@
 
 import { useEffect, useState } from "react";
 import { TextField } from "@/components/ui/text-field";
-import { formatSignificant, type QuantityKind, type UnitSystem } from "@/lib/coating-math/units";
+import { formatSignificant, type QuantityKind, type UnitSystem } from "@/lib/coating-math/display-units";
 import { batchOvenRackingThroughput, conveyorRackingThroughput } from "@/lib/rack/throughput";
 import { convertText, fieldText, metricFrom, withUnit } from "./form-units";
 import type { LineOption } from "./line-options";

@@ -2,7 +2,7 @@
 // The plan as a plain printable list: the blocks with their grids and spacing, then the tiers
 // from the bottom up — what the person hanging parts needs at the rack.
 
-import { formatQuantity, type UnitSystem } from "@/lib/coating-math/units";
+import { formatQuantity, type UnitSystem } from "@/lib/coating-math/display-units";
 import { sameLengthMm } from "@/lib/rack/orientations";
 import type { RackPlanResult } from "@/app/api/rack/plan/route";
 import type { RackPlanRequest } from "@/lib/validation/rack";

@@ -1,7 +1,7 @@
 // The plan's reason sentence in the user's units. The API words it in mm and kg; for metric users
 // that sentence is shown as is, for US users the same facts are worded here in inches and pounds.
 
-import { formatQuantity, type UnitSystem } from "@/lib/coating-math/units";
+import { formatQuantity, type UnitSystem } from "@/lib/coating-math/display-units";
 import type { RackPlanResult } from "@/app/api/rack/plan/route";
 import type { RackPlanRequest } from "@/lib/validation/rack";
 

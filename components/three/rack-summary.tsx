@@ -1,4 +1,4 @@
-import { formatQuantity, formatSignificant, type UnitSystem } from "@/lib/coating-math/units";
+import { formatQuantity, formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 
 interface Props {
   count: number;

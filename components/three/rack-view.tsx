@@ -9,7 +9,7 @@ import { Canvas, useFrame, useThree, type ThreeEvent } from "@react-three/fiber"
 import { OrbitControls } from "@react-three/drei";
 import type { OrbitControls as OrbitControlsImpl } from "three-stdlib";
 import * as THREE from "three";
-import { formatQuantity, type UnitSystem } from "@/lib/coating-math/units";
+import { formatQuantity, type UnitSystem } from "@/lib/coating-math/display-units";
 import {
   fillSummary,
   frameLineGeometry,

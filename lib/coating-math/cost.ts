@@ -1,6 +1,6 @@
 /** Cost per part and run line time. Money is in the plant's one currency (no unit suffix). */
 import { requireFiniteResult, requireInRange, requirePositive } from "./errors";
-import { convert } from "./units";
+import { convert } from "./display-units";
 
 const MIN_PER_H = convert(1, "h", "min");
 

@@ -4,7 +4,7 @@
  */
 import { DomainError, requireFiniteResult, requireInRange, requirePositive } from "./errors";
 import { isAtLeast, isBelow } from "./compare";
-import { convert } from "./units";
+import { convert } from "./display-units";
 
 const M_PER_MM = convert(1, "mm", "m");
 const S_PER_MIN = convert(1, "min", "s");

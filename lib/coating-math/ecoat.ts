@@ -4,7 +4,7 @@
  */
 import { requireFiniteResult, requireInRange, requirePositive } from "./errors";
 import { isAtMost } from "./compare";
-import { convert } from "./units";
+import { convert } from "./display-units";
 
 /** kg deposited by a film of 1 g/cm³ density, 1 µm thick, over 1 m² (mathjs: 1e-3). */
 const KG_PER_GCM3_UM_M2 = convert(1, "g um m^2 / cm^3", "kg");

@@ -4,7 +4,7 @@
  */
 import { DomainError, requireInRange, requirePositive } from "./errors";
 import { isAbove, isAtMost, isBelow, tolerantCeil } from "./compare";
-import { convert } from "./units";
+import { convert } from "./display-units";
 
 /** SSPC-PA 2: readings per spot, spots per area. */
 export const PA2_MIN_READINGS_PER_SPOT = 3;

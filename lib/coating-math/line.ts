@@ -1,6 +1,6 @@
 /** Conveyor line throughput and stage dwell. */
 import { requireFiniteResult, requireInRange, requirePositive } from "./errors";
-import { convert } from "./units";
+import { convert } from "./display-units";
 
 const MIN_PER_H = convert(1, "h", "min");
 

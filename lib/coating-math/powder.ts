@@ -3,7 +3,7 @@
  * with reclaim, and the powder needed for a run.
  */
 import { DomainError, requireFiniteResult, requireInRange, requirePositive } from "./errors";
-import { convert } from "./units";
+import { convert } from "./display-units";
 
 /**
  * m²/kg covered by 1 kg of powder of SG 1 at 1 µm: 1 kg at SG 1 is 1 L, and 1 L spread at 1 µm

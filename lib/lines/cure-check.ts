@@ -7,7 +7,7 @@ import { bestCurePoint, cureHeatUp, type CurePoint } from "../coating-math/cure"
 import { DomainError, requireInRange, requirePositive } from "../coating-math/errors";
 import { stageDwellMin } from "../coating-math/line";
 import { isAtLeast } from "../coating-math/compare";
-import { formatSignificant } from "../coating-math/units";
+import { formatSignificant } from "../coating-math/display-units";
 import {
   APPLYING_STAGE,
   STAGE_KIND_LABELS,

@@ -4,7 +4,7 @@
  */
 import { DomainError, requirePositive } from "../coating-math/errors";
 import { isAtLeast, isAtMost } from "../coating-math/compare";
-import { formatSignificant } from "../coating-math/units";
+import { formatSignificant } from "../coating-math/display-units";
 
 export const STAGE_KINDS = [
   "clean",
