@@ -245,47 +245,68 @@ export class ClosedMeshChecker {
     const vertices = this.welder.count;
     const tri = this.triangles;
     const n = 3 * this.triangleCount;
-    if (n === 0) return false;
-    // Each undirected edge (p, q), p < q, is listed under p.
-    const start = new Int32Array(vertices + 1);
-    for (let i = 0; i < n; i += 3) {
-      const a = tri[i], b = tri[i + 1], c = tri[i + 2];
-      // A collapsed edge of a zero-area triangle has nothing to pair with; it is skipped.
-      if (a !== b) start[a < b ? a : b]++;
-      if (b !== c) start[b < c ? b : c]++;
-      if (c !== a) start[c < a ? c : a]++;
-    }
-    let total = 0;
-    for (let v = 0; v < vertices; v++) {
-      const d = start[v];
-      start[v] = total;
-      total += d;
-    }
-    start[vertices] = total;
-    const fill = start.slice(0, vertices);
-    const other = new Int32Array(total);
-    for (let i = 0; i < n; i += 3) {
-      const a = tri[i], b = tri[i + 1], c = tri[i + 2];
-      if (a < b) other[fill[a]++] = b;
-      else if (b < a) other[fill[b]++] = a;
-      if (b < c) other[fill[b]++] = c;
-      else if (c < b) other[fill[c]++] = b;
-      if (c < a) other[fill[c]++] = a;
-      else if (a < c) other[fill[a]++] = c;
-    }
     this.triangles = new Int32Array(0);
-    // Sorted per vertex, every neighbour must appear exactly twice.
-    for (let v = 0; v < vertices; v++) {
-      const s = start[v];
-      const e = start[v + 1];
-      if (e - s > 1) sortRange(other, s, e);
-      for (let k = s; k < e; ) {
-        let j = k + 1;
-        while (j < e && other[j] === other[k]) j++;
-        if (j - k !== 2) return false;
-        k = j;
-      }
-    }
-    return total > 0;
+    if (n === 0) return false;
+    // Each undirected edge (p, q), p < q, is listed under p: a compressed adjacency list.
+    const start = new Int32Array(vertices + 1);
+    countLowerEnds(tri, n, start);
+    const total = prefixSums(start, vertices);
+    const other = new Int32Array(total);
+    listHigherEnds(tri, n, start.slice(0, vertices), other);
+    return total > 0 && everyNeighbourTwice(start, other, vertices);
   }
+}
+
+// The passes of isClosed(), each loop in its own function: a long loop is compiled while it runs
+// (on-stack replacement), and code after it in the same function, not yet run, then drops back
+// to the interpreter at the loop's exit (seen with --trace-deopt).
+
+function countLowerEnds(tri: Int32Array, n: number, start: Int32Array): void {
+  for (let i = 0; i < n; i += 3) {
+    const a = tri[i], b = tri[i + 1], c = tri[i + 2];
+    // A collapsed edge of a zero-area triangle has nothing to pair with; it is skipped.
+    if (a !== b) start[a < b ? a : b]++;
+    if (b !== c) start[b < c ? b : c]++;
+    if (c !== a) start[c < a ? c : a]++;
+  }
+}
+
+/** Turns counts into start offsets in place; returns the total. */
+function prefixSums(start: Int32Array, vertices: number): number {
+  let total = 0;
+  for (let v = 0; v < vertices; v++) {
+    const d = start[v];
+    start[v] = total;
+    total += d;
+  }
+  start[vertices] = total;
+  return total;
+}
+
+function listHigherEnds(tri: Int32Array, n: number, fill: Int32Array, other: Int32Array): void {
+  for (let i = 0; i < n; i += 3) {
+    const a = tri[i], b = tri[i + 1], c = tri[i + 2];
+    if (a < b) other[fill[a]++] = b;
+    else if (b < a) other[fill[b]++] = a;
+    if (b < c) other[fill[b]++] = c;
+    else if (c < b) other[fill[c]++] = b;
+    if (c < a) other[fill[c]++] = a;
+    else if (a < c) other[fill[a]++] = c;
+  }
+}
+
+/** Sorted per vertex, every neighbour must appear exactly twice. */
+function everyNeighbourTwice(start: Int32Array, other: Int32Array, vertices: number): boolean {
+  for (let v = 0; v < vertices; v++) {
+    const s = start[v];
+    const e = start[v + 1];
+    if (e - s > 1) sortRange(other, s, e);
+    for (let k = s; k < e; ) {
+      let j = k + 1;
+      while (j < e && other[j] === other[k]) j++;
+      if (j - k !== 2) return false;
+      k = j;
+    }
+  }
+  return true;
 }
