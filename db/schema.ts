@@ -191,6 +191,121 @@ export interface PartsTable {
   updated_at: number;
 }
 
+/** A run: part × quantity on a line, on a day (epoch seconds at 00:00 UTC) and shift. */
+export interface RunsTable {
+  id: Generated<number>;
+  part_id: string;
+  quantity: number;
+  line_id: number;
+  run_date: number;
+  shift: number;
+  /** order on the line's day board */
+  sequence: number;
+  /** null: the line's nominal speed */
+  line_speed_m_per_min: number | null;
+  clearance_mm: number;
+  orientations: "any" | "upright";
+  /** a forced orientation { alongWidthMm, alongHeightMm, alongDepthMm }, or null */
+  orientation_json: string | null;
+  parts_per_carrier_override: number | null;
+  /** free text, one masking item per line */
+  masking: string;
+  notes: string;
+  status: "draft" | "planned" | "in-progress" | "done" | "cancelled";
+  created_by: string | null;
+  created_at: number;
+  updated_at: number;
+}
+
+/** The coats of a run in order (position 0 first). */
+export interface RunCoatsTable {
+  id: Generated<number>;
+  run_id: number;
+  position: number;
+  coating_id: number;
+  film_um: number;
+  first_pass_efficiency: number | null;
+  reclaim_efficiency: number | null;
+}
+
+/**
+ * A saved what-if for the throughput comparison: a line, the figures changed (overrides_json:
+ * lineSpeedMPerMin, carrierPitchM, partsPerCarrier, ovenLengthM, airTempC), and optionally the
+ * part (from the catalogue, or the part_* fields entered by hand) and powder it was made for.
+ */
+export interface ScenariosTable {
+  id: Generated<number>;
+  name: string;
+  line_id: number;
+  overrides_json: string;
+  part_id: string | null;
+  part_area_m2: number | null;
+  part_inside_area_m2: number | null;
+  part_mass_kg: number | null;
+  part_thickness_mm: number | null;
+  part_length_mm: number | null;
+  part_width_mm: number | null;
+  part_height_mm: number | null;
+  coating_id: number | null;
+  created_by: string | null;
+  created_at: number;
+  updated_at: number;
+  archived: number;
+}
+
+/** A temperature data logger and the column mapping last used with its files (JSON). */
+export interface LoggersTable {
+  id: Generated<number>;
+  name: string;
+  mapping_json: string;
+  created_at: number;
+  updated_at: number;
+}
+
+/**
+ * A measured oven profile. The oven is line_id + stage_position (null for a batch oven), with the
+ * stage's name as imported; series_json holds the mapped series (seconds, °C); run_id is free text.
+ */
+export interface OvenProfilesTable {
+  id: Generated<number>;
+  name: string;
+  line_id: number;
+  stage_position: number | null;
+  stage_name: string;
+  coating_id: number;
+  run_id: string | null;
+  logger_id: number | null;
+  file_name: string;
+  /** "YYYY-MM-DD", the day of the logger run */
+  measured_on: string | null;
+  notes: string;
+  overbake_margin_k: number;
+  sample_count: number;
+  duration_s: number;
+  probe_count: number;
+  mapping_json: string;
+  series_json: string;
+  created_by: string | null;
+  created_at: number;
+}
+
+/** Each heat-transfer coefficient fitted from a profile and stored on an oven: the history. */
+export interface HeatTransferFitsTable {
+  id: Generated<number>;
+  line_id: number;
+  stage_position: number | null;
+  stage_name: string;
+  profile_id: number | null;
+  profile_name: string;
+  probe_label: string;
+  thickness_mm: number;
+  h_before_w_per_m2k: number | null;
+  h_after_w_per_m2k: number;
+  rms_k: number;
+  applied_by: string | null;
+  applied_at: number;
+}
+
 export interface Database {
   users: UsersTable;
   sessions: SessionsTable;
@@ -205,6 +320,12 @@ export interface Database {
   line_stages: LineStagesTable;
   meshes: MeshesTable;
   parts: PartsTable;
+  scenarios: ScenariosTable;
+  runs: RunsTable;
+  run_coats: RunCoatsTable;
+  loggers: LoggersTable;
+  oven_profiles: OvenProfilesTable;
+  heat_transfer_fits: HeatTransferFitsTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -10,10 +10,15 @@ export interface NavItem {
 // Only sections that exist are listed; each capability adds its entry when its screen lands.
 export const navItems: NavItem[] = [
   { href: "/", label: "Today", roles: "all" },
-  { href: "/calculators", label: "Calculators", roles: "all" },
+  { href: "/runs", label: "Runs", roles: ["supervisor", "operator", "manager"] },
+  { href: "/board", label: "Day board", roles: ["supervisor", "manager"] },
+  { href: "/parts", label: "Parts", roles: "all" },
   { href: "/racking", label: "Racking", roles: ["engineer", "supervisor", "manager"] },
   { href: "/coatings", label: "Coatings", roles: "all" },
   { href: "/lines", label: "Lines", roles: "all" },
+  { href: "/throughput", label: "Throughput", roles: ["manager", "supervisor"] },
+  { href: "/profiles", label: "Oven profiles", roles: ["supervisor", "engineer", "manager"] },
+  { href: "/calculators", label: "Calculators", roles: "all" },
   { href: "/admin/users", label: "Users", roles: ["admin"] },
   { href: "/admin/outbox", label: "Mail outbox", roles: ["admin"] },
   { href: "/settings", label: "Settings", roles: "all" },

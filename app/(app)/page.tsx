@@ -4,6 +4,9 @@ import { plantSettings } from "@/lib/server/plant";
 import { navFor } from "@/lib/navigation";
 import type { Role } from "@/db/schema";
 import { StockAttention } from "@/components/coatings/stock-attention";
+import { TodayRuns } from "@/components/runs/today-runs";
+import { ThroughputHomePanel } from "@/components/throughput/home-panel";
+import { homeThroughput } from "@/lib/server/throughput";
 
 export const metadata = { title: "Today" };
 
@@ -37,7 +40,9 @@ export default async function HomePage() {
           ))}
         </ul>
       </section>
+      {(user.role === "supervisor" || user.role === "operator" || user.role === "admin") && <TodayRuns showBoard={user.role !== "operator"} />}
       {(user.role === "purchaser" || user.role === "admin") && <StockAttention unitSystem={user.unitSystem} />}
+      {(user.role === "manager" || user.role === "admin") && <ThroughputHomePanel data={await homeThroughput(user.unitSystem)} />}
     </div>
   );
 }

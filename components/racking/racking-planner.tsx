@@ -8,7 +8,7 @@ import useSWR from "swr";
 import { TextField } from "@/components/ui/text-field";
 import { RackViewLazy } from "@/components/three/rack-view-lazy";
 import { FetchError, sendJson } from "@/lib/fetcher";
-import { formatQuantity, unitLabel, type QuantityKind, type UnitSystem } from "@/lib/coating-math/units";
+import { formatQuantity, unitLabel, type QuantityKind, type UnitSystem } from "@/lib/coating-math/display-units";
 import { allowedOrientations } from "@/lib/rack/orientations";
 import type { RackPlanResult } from "@/app/api/rack/plan/route";
 import type { RackPlanRequest } from "@/lib/validation/rack";
@@ -17,6 +17,8 @@ import { lineOptions, type LineOption } from "./line-options";
 import { PerLine } from "./per-line";
 import { orientationWords, RackPlanList } from "./rack-plan-list";
 import { reasonText } from "./reason-text";
+import { CataloguePartPicker } from "@/components/parts/catalogue-part-picker";
+import type { PartView } from "@/lib/server/parts";
 
 const FIELDS = {
   lengthMm: "lengthMm",
@@ -92,6 +94,20 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
   const [mode, setMode] = useState<"any" | "upright">("upright");
   const [forced, setForced] = useState("");
   const [line, setLine] = useState<LineOption | null>(null);
+  // A part taken from the catalogue: its box, and its mesh once loaded (drawn while the box matches).
+  const [picked, setPicked] = useState<{ boxMm: [number, number, number]; mesh: Float32Array | null } | null>(null);
+
+  function pickPart(part: PartView | null) {
+    if (!part) return setPicked(null);
+    setPicked({ boxMm: [part.lengthMm, part.widthMm, part.heightMm], mesh: null });
+    setValues((v) => ({
+      ...v,
+      lengthMm: fieldText("lengthMm", part.lengthMm, unitSystem),
+      widthMm: fieldText("lengthMm", part.widthMm, unitSystem),
+      heightMm: fieldText("lengthMm", part.heightMm, unitSystem),
+      massKg: fieldText("massKg", part.massKg, unitSystem),
+    }));
+  }
 
   // The header's unit switch re-renders the page in the other system: re-type what was entered.
   if (system !== unitSystem) {
@@ -199,6 +215,7 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
         <form className="no-print space-y-4" onSubmit={(e) => e.preventDefault()} aria-label="Racking input" noValidate>
           <fieldset className="card space-y-3">
             <legend className="px-1 font-semibold">Part (its bounding box)</legend>
+            <CataloguePartPicker onPick={pickPart} onMesh={(mesh) => setPicked((p) => (p ? { ...p, mesh } : p))} />
             <div className="grid grid-cols-2 gap-3">
               {field("lengthMm", "Part length")}
               {field("widthMm", "Part width")}
@@ -314,6 +331,11 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
               partMassKg={shown.input.part.massKg}
               maxLoadKg={shown.input.carrier.maxLoadKg}
               spaceCount={shown.plan.spaceCount}
+              partMesh={
+                picked?.mesh && picked.boxMm.every((mm, i) => Math.abs(mm - [shown.input.part.lengthMm, shown.input.part.widthMm, shown.input.part.heightMm][i]) <= 0.01 * mm)
+                  ? picked.mesh
+                  : null
+              }
               unitSystem={unitSystem}
             />
           )}

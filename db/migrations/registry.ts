@@ -2,6 +2,10 @@ import type { Migration, MigrationProvider } from "kysely";
 import * as foundation from "./2026-12-01-foundation";
 import * as coatingsLines from "./2026-12-02-coatings-lines";
 import * as parts from "./2026-12-02-parts";
+import * as partsExtra from "./2026-12-02-parts-extra";
+import * as scenarios from "./2026-12-02-scenarios";
+import * as runs from "./2026-12-02-runs";
+import * as profiles from "./2026-12-02-profiles";
 
 /**
  * Kysely's FileMigrationProvider cannot import .ts on Node 20, so migrations are listed here.
@@ -11,6 +15,10 @@ const migrations: Record<string, Migration> = {
   "2026-12-01-foundation": foundation,
   "2026-12-02-coatings-lines": coatingsLines,
   "2026-12-02-parts": parts,
+  "2026-12-02-parts-extra": partsExtra,
+  "2026-12-02-scenarios": scenarios,
+  "2026-12-02-runs": runs,
+  "2026-12-02-profiles": profiles,
 };
 
 export const migrationProvider: MigrationProvider = {

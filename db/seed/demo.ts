@@ -3,6 +3,10 @@ import { hash } from "@node-rs/argon2";
 import type { Db } from "../index";
 import type { Role } from "../schema";
 import { seedCoatingsAndLines } from "./coatings-lines";
+import { seedParts } from "./parts";
+import { seedRuns } from "./runs";
+import { seedScenarios } from "./scenarios";
+import { seedProfiles } from "./profiles";
 
 /*
  * The demo scenario: Bramblecote Steelworks, an invented fabricator of steel outdoor goods.
@@ -48,6 +52,10 @@ export async function seedDemo(db: Db): Promise<boolean> {
       )
       .execute();
     await seedCoatingsAndLines(trx, t);
+    await seedParts(trx, t);
+    await seedRuns(trx, t);
+    await seedScenarios(trx, t);
+    await seedProfiles(trx, t);
   });
   return true;
 }

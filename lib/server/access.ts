@@ -40,6 +40,34 @@ export const apiAccess: Record<string, Partial<Record<Method, Access>>> = {
   "/api/lines/[id]": { GET: ANY, PUT: ["manager"], DELETE: ["manager"] },
   "/api/lines/[id]/timeline": { GET: ANY },
   "/api/lines/[id]/cure-check": { POST: ANY },
+  // Parts: engineers (and admin) create and edit; everyone reads. Uploads stream to the data folder.
+  "/api/parts": { GET: ANY, POST: ["engineer"] },
+  "/api/parts/[id]": { GET: ANY, PUT: ["engineer"], DELETE: ["engineer"] },
+  "/api/parts/measure": { POST: ["engineer"] },
+  "/api/parts/export.csv": { GET: ANY },
+  "/api/parts/import": { POST: ["engineer"] },
+  "/api/meshes": { POST: ["engineer"] },
+  "/api/meshes/[id]": { GET: ANY, PATCH: ["engineer"] },
+  "/api/meshes/[id]/file": { GET: ANY },
+  // Scenarios: managers (and admin) save what-ifs; everyone signed in reads and compares.
+  "/api/scenarios": { GET: ANY, POST: ["manager"] },
+  "/api/scenarios/[id]": { GET: ANY, PUT: ["manager"], DELETE: ["manager"] },
+  "/api/scenarios/[id]/duplicate": { POST: ["manager"] },
+  "/api/throughput/compare": { POST: ANY },
+  // Runs: supervisors (and admin) plan and move them; every signed-in role reads plans and run sheets.
+  "/api/runs": { GET: ANY, POST: ["supervisor"] },
+  "/api/runs/preview": { POST: ANY },
+  "/api/runs/[id]": { GET: ANY, PUT: ["supervisor"], DELETE: ["supervisor"] },
+  "/api/runs/[id]/status": { POST: ["supervisor"] },
+  "/api/runs/board": { GET: ANY, PUT: ["supervisor"] },
+  "/api/runs/board/propose": { GET: ANY },
+  // Oven profiles: supervisors and engineers (and admin) import and delete; managers read them and,
+  // as they own the lines, may also store a fitted heat-transfer coefficient on an oven.
+  "/api/profiles": { GET: ["supervisor", "engineer", "manager"], POST: ["supervisor", "engineer"] },
+  "/api/profiles/preview": { POST: ["supervisor", "engineer"] },
+  "/api/profiles/[id]": { GET: ["supervisor", "engineer", "manager"], DELETE: ["supervisor", "engineer"] },
+  "/api/profiles/[id]/apply-fit": { POST: ["supervisor", "engineer", "manager"] },
+  "/api/loggers": { GET: ["supervisor", "engineer", "manager"], POST: ["supervisor", "engineer"] },
 };
 
 export const actionAccess: Record<string, Access> = {

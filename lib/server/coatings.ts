@@ -16,6 +16,7 @@ import type { CurePoint } from "@/lib/coating-math/cure";
 import type { CoatingKind } from "@/lib/lines/stages";
 import type { Chemistry, CoatingInput, LotInput } from "@/lib/validation/coatings";
 import { ApiError, isUniqueViolation } from "./http";
+import { runsUsingCoating } from "@/db/queries/runs";
 
 /** A lot is "near expiry" this many days before its expiry date (common practice, no source). */
 export const NEAR_EXPIRY_DAYS = 60;
@@ -83,7 +84,7 @@ type UsageCheck = (db: Db, coatingId: number) => Promise<UsageRef[]>;
  * capability that stores a coating id adds its check to this list, in this file (not at run
  * time, so no import order can skip it). DELETE is refused while any check returns a row.
  */
-export const coatingUsageChecks: UsageCheck[] = [];
+export const coatingUsageChecks: UsageCheck[] = [runsUsingCoating];
 
 export async function coatingUsage(db: Db, coatingId: number): Promise<UsageRef[]> {
   return (await Promise.all(coatingUsageChecks.map((check) => check(db, coatingId)))).flat();

@@ -18,6 +18,8 @@ import { lineTimeline, type LineTimeline } from "@/lib/lines/timeline";
 import type { CureCheckBody, LineInput } from "@/lib/validation/lines";
 import { nowSeconds, type UsageRef } from "./coatings";
 import { ApiError, isUniqueViolation } from "./http";
+import { runsUsingLine } from "@/db/queries/runs";
+import { scenarioUsageOfLine } from "@/db/queries/scenarios";
 
 export interface WindowMm {
   widthMm: number;
@@ -75,7 +77,7 @@ type UsageCheck = (db: Db, lineId: number) => Promise<UsageRef[]>;
  * What refers to a line (run plans, scenarios…). Nothing does yet; each capability that stores
  * a line id adds its check to this list, in this file. DELETE is refused while any returns a row.
  */
-export const lineUsageChecks: UsageCheck[] = [];
+export const lineUsageChecks: UsageCheck[] = [runsUsingLine, scenarioUsageOfLine];
 
 export async function lineUsage(db: Db, lineId: number): Promise<UsageRef[]> {
   return (await Promise.all(lineUsageChecks.map((check) => check(db, lineId)))).flat();
@@ -303,4 +305,43 @@ export async function cureCheckFor(lineId: number, body: CureCheckBody): Promise
     }
     throw e;
   }
+}
+
+/**
+ * Stores a measured heat-transfer coefficient on one oven (oven profiles calibrate the heat-up
+ * model with it): the stage at `stagePosition` of a conveyor line, or a batch oven's own value
+ * when the position is null. `expectStageName` is the stage's name when the profile was measured:
+ * a stage list edited since then answers 409 instead of writing onto another stage. Pass a
+ * transaction as `db` to record the change beside it. Returns the value replaced.
+ */
+export async function storeOvenHeatTransfer(
+  db: Db,
+  lineId: number,
+  stagePosition: number | null,
+  expectStageName: string,
+  heatTransferCoefficientWPerM2K: number,
+): Promise<{ beforeWPerM2K: number | null; ovenName: string }> {
+  const h = heatTransferCoefficientWPerM2K;
+  if (!(h > 0 && h <= 1000)) {
+    throw new ApiError(400, "invalid_input", "The heat-transfer coefficient must be greater than 0 and at most 1000 W/m²K.", { heatTransferCoefficientWPerM2K: "must be greater than 0 and at most 1000 W/m²K" });
+  }
+  const line = await findLineRow(db, lineId);
+  if (!line) throw new ApiError(404, "not_found", "No such line.");
+  const t = nowSeconds();
+  if (stagePosition === null) {
+    if (line.kind !== "batch") throw new ApiError(409, "conflict", `${line.name} is no longer a batch oven; the profile's oven cannot be found.`);
+    await db.updateTable("lines").set({ heat_transfer_coefficient_w_per_m2k: h, updated_at: t }).where("id", "=", lineId).execute();
+    return { beforeWPerM2K: line.heat_transfer_coefficient_w_per_m2k, ovenName: line.name };
+  }
+  const stage = (await stagesOf(db, [lineId])).find((s) => s.position === stagePosition);
+  if (!stage || line.kind !== "conveyor" || (stage.kind !== "cure-oven" && stage.kind !== "dry-off") || stage.name !== expectStageName) {
+    throw new ApiError(
+      409,
+      "conflict",
+      `The stages of ${line.name} have changed since this profile was measured: stage ${stagePosition + 1} is ${stage ? `now "${stage.name}"` : "gone"}, not the oven "${expectStageName}". Nothing was stored.`,
+    );
+  }
+  await db.updateTable("line_stages").set({ heat_transfer_coefficient_w_per_m2k: h }).where("id", "=", stage.id).execute();
+  await db.updateTable("lines").set({ updated_at: t }).where("id", "=", lineId).execute();
+  return { beforeWPerM2K: stage.heat_transfer_coefficient_w_per_m2k, ovenName: stage.name };
 }

@@ -11,15 +11,15 @@ afterAll(async () => {
 });
 
 // What each role's navigation shows (from the roles in the product brief); anything else must be absent.
-const common = ["Today", "Calculators", "Coatings", "Lines", "Settings"];
-const planners = [...common, "Racking"];
+const everyone = ["Today", "Parts", "Coatings", "Lines", "Calculators", "Settings"];
+const planners = [...everyone, "Racking", "Runs", "Day board", "Throughput", "Oven profiles"];
 const expected: Record<string, string[]> = {
   admin: [...planners, "Users", "Mail outbox"],
   manager: planners,
   supervisor: planners,
-  engineer: planners,
-  purchaser: common,
-  operator: common,
+  engineer: [...everyone, "Racking", "Oven profiles"],
+  purchaser: everyone,
+  operator: [...everyone, "Runs"],
 };
 
 describe("sign-in and role navigation", () => {
