@@ -6,7 +6,7 @@ const config: Config = {
   theme: {
     extend: {
       colors: {
-        ink: { DEFAULT: "#1e262d", soft: "#3f4c57", faint: "#6b7884" },
+        ink: { DEFAULT: "#1e262d", soft: "#3f4c57", faint: "#586470" },
         plate: { DEFAULT: "#f5f5f1", raised: "#ffffff", sunk: "#e8e9e3", line: "#d3d6cf" },
         phosphate: { DEFAULT: "#1d6b63", dark: "#144c46", light: "#d8ebe7" },
         oxide: { DEFAULT: "#a8461f", light: "#f7e3d8" },

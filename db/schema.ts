@@ -306,6 +306,105 @@ export interface HeatTransferFitsTable {
   applied_at: number;
 }
 
+/** A film-thickness gauge (ASTM D7091: type1 magnetic pull-off, type2 electronic). */
+export interface GaugesTable {
+  id: Generated<number>;
+  name: string;
+  gauge_type: "type1" | "type2";
+  serial: string;
+  verified_at: number | null;
+  /** remembered CSV column mapping { readingColumn, spotColumn?, areaColumn?, unit, hasHeader } */
+  mapping_json: string | null;
+  created_at: number;
+}
+
+/** DFT readings of one coat of a run; readings_json: number[][][] (sspc-pa2) or number[] (iso19840), µm. */
+export interface FilmChecksTable {
+  id: Generated<number>;
+  run_id: number;
+  coat_position: number;
+  rule: "sspc-pa2" | "iso19840";
+  /** null: the coating's film range */
+  spec_min_um: number | null;
+  spec_max_um: number | null;
+  nominal_um: number | null;
+  gauge_id: number | null;
+  readings_json: string;
+  notes: string;
+  created_by: string | null;
+  created_at: number;
+  updated_at: number;
+}
+
+/** Cure, adhesion, appearance or coverage test of a run; data_json depends on kind. */
+export interface FilmTestsTable {
+  id: Generated<number>;
+  run_id: number;
+  kind: "cure" | "adhesion" | "appearance" | "coverage";
+  data_json: string;
+  recorded_by: string | null;
+  recorded_at: number;
+}
+
+/** Every change to film checks and tests: who, when, what, old → new. */
+export interface FilmCheckLogTable {
+  id: Generated<number>;
+  run_id: number;
+  entity: string;
+  entity_id: number;
+  action: string;
+  user_id: string | null;
+  at: number;
+  old_json: string | null;
+  new_json: string | null;
+}
+
+/** A purchase request sent to one supplier (by e-mail); lines below. */
+export interface PurchaseRequestsTable {
+  id: Generated<number>;
+  reference: string;
+  supplier_name: string;
+  supplier_email: string;
+  status: "sent" | "confirmed" | "received" | "cancelled";
+  sent_at: number;
+  confirmed_at: number | null;
+  received_at: number | null;
+  cancelled_at: number | null;
+  notes: string;
+  created_by: string | null;
+  created_at: number;
+}
+
+export interface PurchaseRequestLinesTable {
+  id: Generated<number>;
+  request_id: number;
+  coating_id: number;
+  containers: number;
+  container_kg: number;
+  /** the supplier's lead time when sent: expected arrival = sent + lead time */
+  lead_time_days: number;
+  received_kg: number;
+}
+
+/** Powder actually used by a done run's coat, and the utilisation it implies. */
+export interface MaterialUsageTable {
+  id: Generated<number>;
+  run_id: number;
+  coat_index: number;
+  line_id: number;
+  coating_id: number;
+  parts_coated: number;
+  kg_used: number;
+  area_m2: number;
+  film_um: number;
+  /** 1 when film_um is the measured mean, 0 the target */
+  film_measured: number;
+  utilisation: number;
+  excluded: number;
+  recorded_by: string | null;
+  recorded_at: number;
+}
+
 export interface Database {
   users: UsersTable;
   sessions: SessionsTable;
@@ -323,9 +422,16 @@ export interface Database {
   scenarios: ScenariosTable;
   runs: RunsTable;
   run_coats: RunCoatsTable;
+  gauges: GaugesTable;
+  film_checks: FilmChecksTable;
+  film_tests: FilmTestsTable;
+  film_check_log: FilmCheckLogTable;
   loggers: LoggersTable;
   oven_profiles: OvenProfilesTable;
   heat_transfer_fits: HeatTransferFitsTable;
+  purchase_requests: PurchaseRequestsTable;
+  purchase_request_lines: PurchaseRequestLinesTable;
+  material_usage: MaterialUsageTable;
 }
 
 export type User = Selectable<UsersTable>;

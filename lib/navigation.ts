@@ -18,6 +18,7 @@ export const navItems: NavItem[] = [
   { href: "/lines", label: "Lines", roles: "all" },
   { href: "/throughput", label: "Throughput", roles: ["manager", "supervisor"] },
   { href: "/profiles", label: "Oven profiles", roles: ["supervisor", "engineer", "manager"] },
+  { href: "/quality", label: "Quality", roles: ["supervisor", "manager"] },
   { href: "/calculators", label: "Calculators", roles: "all" },
   { href: "/admin/users", label: "Users", roles: ["admin"] },
   { href: "/admin/outbox", label: "Mail outbox", roles: ["admin"] },

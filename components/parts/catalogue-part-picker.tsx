@@ -55,8 +55,7 @@ export function CataloguePartPicker({ onPick, onMesh }: Props) {
     if (preselected.current || !wanted || !data) return;
     preselected.current = true;
     if (data.parts.some((p) => p.id === wanted)) pick(wanted);
-    // pick() reads the list this effect waited for
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+    // pick() reads the list this effect waited for; it runs once per page
   }, [data, params]);
   useEffect(() => () => abort.current?.abort(), []);
 

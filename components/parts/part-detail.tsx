@@ -9,9 +9,11 @@ import type { PartResult } from "@/app/api/parts/[id]/route";
 import { PartPreviewLazy } from "@/components/three/part-preview-lazy";
 import { FetchError, sendJson } from "@/lib/fetcher";
 import type { TemplateInfo } from "@/lib/server/parts";
-import { AREA_ORIGIN_LABELS, MASS_ORIGIN_LABELS, MATERIAL_LABELS } from "./part-labels";
+import { MASS_ORIGIN_LABELS, MATERIAL_LABELS } from "./part-labels";
 import { inputFromView } from "./part-input";
 import { showArea, showBox, showBytes, showDensity, showLength, showMass, showVolume, type UnitSystem } from "./part-units";
+
+const ORIGIN_PHRASE = { mesh: "the STL mesh", template: "a shape template", formula: "a formula", manual: "a typed figure" } as const;
 
 interface Props {
   id: string;
@@ -106,7 +108,7 @@ export function PartDetail({ id, unitSystem, canEdit, templates }: Props) {
             <Row term="Inside area (kept apart)" value={showArea(part.insideAreaM2, unitSystem)} />
           </dl>
           <p className="mt-2 text-xs text-ink-soft">
-            From {AREA_ORIGIN_LABELS[part.areaOrigin].toLowerCase()}
+            From {ORIGIN_PHRASE[part.areaOrigin]}
             {template && `: ${template.name.toLowerCase()}, ${template.dimensions.map((d) => `${d.label.toLowerCase()} ${len(part.dimensionsMm?.[d.name] ?? 0)}`).join(", ")}`}
             {part.areaOrigin === "formula" && part.formula && (
               <>

@@ -107,6 +107,7 @@ export function RunDetailView({ id, parts, unitSystem: sys, currency, canPlan }:
         </div>
         <div className="flex flex-wrap gap-2">
           <Link className="btn-quiet" href={`/runs/${run.id}/sheet`}>Run sheet</Link>
+          <Link className="btn-quiet" href={`/runs/${run.id}/film`}>Film checks</Link>
           <Link className="btn-quiet" href={`/board?lineId=${run.lineId}&date=${run.date}`}>Day board</Link>
         </div>
       </div>

@@ -6,6 +6,8 @@ import * as partsExtra from "./2026-12-02-parts-extra";
 import * as scenarios from "./2026-12-02-scenarios";
 import * as runs from "./2026-12-02-runs";
 import * as profiles from "./2026-12-02-profiles";
+import * as filmChecks from "./2026-12-02-film-checks";
+import * as purchasing from "./2026-12-02-purchasing";
 
 /**
  * Kysely's FileMigrationProvider cannot import .ts on Node 20, so migrations are listed here.
@@ -19,6 +21,8 @@ const migrations: Record<string, Migration> = {
   "2026-12-02-scenarios": scenarios,
   "2026-12-02-runs": runs,
   "2026-12-02-profiles": profiles,
+  "2026-12-02-film-checks": filmChecks,
+  "2026-12-02-purchasing": purchasing,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -7,6 +7,7 @@ import { seedParts } from "./parts";
 import { seedRuns } from "./runs";
 import { seedScenarios } from "./scenarios";
 import { seedProfiles } from "./profiles";
+import { seedFilmChecks } from "./film-checks";
 
 /*
  * The demo scenario: Bramblecote Steelworks, an invented fabricator of steel outdoor goods.
@@ -56,6 +57,7 @@ export async function seedDemo(db: Db): Promise<boolean> {
     await seedRuns(trx, t);
     await seedScenarios(trx, t);
     await seedProfiles(trx, t);
+    await seedFilmChecks(trx, t);
   });
   return true;
 }

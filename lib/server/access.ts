@@ -61,6 +61,12 @@ export const apiAccess: Record<string, Partial<Record<Method, Access>>> = {
   "/api/runs/[id]/status": { POST: ["supervisor"] },
   "/api/runs/board": { GET: ANY, PUT: ["supervisor"] },
   "/api/runs/board/propose": { GET: ANY },
+  // Film checks: operators and supervisors (and admin) record readings and tests; everyone reads.
+  "/api/runs/[id]/film-checks": { GET: ANY, POST: ["operator", "supervisor"] },
+  "/api/film-checks/[id]": { GET: ANY, PUT: ["operator", "supervisor"], DELETE: ["operator", "supervisor"] },
+  "/api/runs/[id]/tests": { GET: ANY, POST: ["operator", "supervisor"] },
+  "/api/gauges": { GET: ANY, POST: ["operator", "supervisor"] },
+  "/api/quality/trend": { GET: ["supervisor", "manager"] },
   // Oven profiles: supervisors and engineers (and admin) import and delete; managers read them and,
   // as they own the lines, may also store a fitted heat-transfer coefficient on an oven.
   "/api/profiles": { GET: ["supervisor", "engineer", "manager"], POST: ["supervisor", "engineer"] },
@@ -68,6 +74,17 @@ export const apiAccess: Record<string, Partial<Record<Method, Access>>> = {
   "/api/profiles/[id]": { GET: ["supervisor", "engineer", "manager"], DELETE: ["supervisor", "engineer"] },
   "/api/profiles/[id]/apply-fit": { POST: ["supervisor", "engineer", "manager"] },
   "/api/loggers": { GET: ["supervisor", "engineer", "manager"], POST: ["supervisor", "engineer"] },
+  // Forecast and purchasing: purchasers (and admin) order and receive; managers read the forecast.
+  "/api/forecast": { GET: ["purchaser", "manager"] },
+  "/api/forecast.csv": { GET: ["purchaser", "manager"] },
+  "/api/purchase-requests": { GET: ["purchaser", "manager"], POST: ["purchaser"] },
+  "/api/purchase-requests/[id]": { GET: ["purchaser", "manager"], PATCH: ["purchaser"] },
+  "/api/purchase-requests/[id]/receive": { POST: ["purchaser"] },
+  // Actual use: operators and supervisors record it on a done run; the estimates are for supervisors and managers.
+  "/api/runs/[id]/actual-use": { GET: ANY, POST: ["operator", "supervisor"] },
+  "/api/feedback": { GET: ["supervisor", "manager", "purchaser"] },
+  "/api/feedback/[id]": { PATCH: ["supervisor"] },
+  "/api/feedback/reset": { POST: ["supervisor"] },
 };
 
 export const actionAccess: Record<string, Access> = {

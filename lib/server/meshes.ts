@@ -77,7 +77,6 @@ const isUnit = (v: string | undefined): v is StlUnit => v === "mm" || v === "in"
 
 /** A file name fit to show: the base name without control characters, at most 200 characters. */
 function cleanFileName(raw: string | undefined): string {
-  // eslint-disable-next-line no-control-regex
   const base = path.basename((raw ?? "").replace(/\\/g, "/")).replace(/[\u0000-\u001f\u007f]/g, "").trim();
   return (base || "upload.stl").slice(0, 200);
 }

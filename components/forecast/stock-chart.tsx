@@ -1,0 +1,48 @@
+"use client";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
+import { formatQuantity, toDisplay } from "@/lib/coating-math/display-units";
+
+interface Props {
+  code: string;
+  series: { date: string; stockKg: number }[];
+  reorderPointKg: number;
+  stockOutDate: string | null;
+  unitSystem: UnitSystem;
+}
+
+const W = 640;
+const H = 200;
+const PAD = { l: 56, r: 12, t: 12, b: 28 };
+
+/** Projected usable stock per day, as a plain SVG step line, with the reorder point dashed. */
+export function StockChart({ code, series, reorderPointKg, stockOutDate, unitSystem }: Props) {
+  if (!series.length) return null;
+  const shown = (kg: number) => toDisplay("massKg", kg, unitSystem).value;
+  const maxY = Math.max(1, ...series.map((p) => shown(p.stockKg)), shown(reorderPointKg)) * 1.1;
+  const x = (i: number) => PAD.l + (i / Math.max(1, series.length - 1)) * (W - PAD.l - PAD.r);
+  const y = (v: number) => PAD.t + (1 - v / maxY) * (H - PAD.t - PAD.b);
+  const path = series.map((p, i) => `${i === 0 ? "M" : "H"}${x(i).toFixed(1)} V${y(shown(p.stockKg)).toFixed(1)}`).join(" ");
+  const unit = toDisplay("massKg", 1, unitSystem).unit;
+  const ticks = [0, 0.5, 1].map((f) => f * maxY);
+  const first = series[0];
+  const last = series[series.length - 1];
+  return (
+    <figure className="space-y-1">
+      <svg viewBox={`0 0 ${W} ${H}`} className="w-full max-w-2xl" role="img" aria-label={`Projected stock of ${code} from ${first.date} to ${last.date}: ${formatQuantity("massKg", first.stockKg, unitSystem, 4)} to ${formatQuantity("massKg", last.stockKg, unitSystem, 4)}${stockOutDate ? `, runs out ${stockOutDate}` : ""}.`}>
+        {ticks.map((t) => (
+          <g key={t}>
+            <line x1={PAD.l} x2={W - PAD.r} y1={y(t)} y2={y(t)} stroke="#d3d6cf" />
+            <text x={PAD.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill="#3f4c57">{Math.round(t)} {unit}</text>
+          </g>
+        ))}
+        <line x1={PAD.l} x2={W - PAD.r} y1={y(shown(reorderPointKg))} y2={y(shown(reorderPointKg))} stroke="#8a6100" strokeDasharray="4 3" />
+        <path d={path} fill="none" stroke="#1d6b63" strokeWidth="2" />
+        <text x={PAD.l} y={H - 8} fontSize="11" fill="#3f4c57">{first.date}</text>
+        <text x={W - PAD.r} y={H - 8} fontSize="11" fill="#3f4c57" textAnchor="end">{last.date}</text>
+      </svg>
+      <figcaption className="text-xs text-ink-soft">
+        Projected usable stock of {code} at the end of each day (solid); reorder point {formatQuantity("massKg", reorderPointKg, unitSystem, 4)} (dashed).
+      </figcaption>
+    </figure>
+  );
+}
