@@ -4,6 +4,8 @@ import { plantSettings } from "@/lib/server/plant";
 import { navFor } from "@/lib/navigation";
 import type { Role } from "@/db/schema";
 import { StockAttention } from "@/components/coatings/stock-attention";
+import { RunningOutPanel } from "@/components/forecast/running-out-panel";
+import { UtilisationHomePanel } from "@/components/feedback/utilisation-home-panel";
 import { TodayRuns } from "@/components/runs/today-runs";
 import { ThroughputHomePanel } from "@/components/throughput/home-panel";
 import { homeThroughput } from "@/lib/server/throughput";
@@ -42,6 +44,8 @@ export default async function HomePage() {
       </section>
       {(user.role === "supervisor" || user.role === "operator" || user.role === "admin") && <TodayRuns showBoard={user.role !== "operator"} />}
       {(user.role === "purchaser" || user.role === "admin") && <StockAttention unitSystem={user.unitSystem} />}
+      {(user.role === "purchaser" || user.role === "admin") && <RunningOutPanel unitSystem={user.unitSystem} />}
+      {(user.role === "manager" || user.role === "admin") && <UtilisationHomePanel />}
       {(user.role === "manager" || user.role === "admin") && <ThroughputHomePanel data={await homeThroughput(user.unitSystem)} />}
     </div>
   );

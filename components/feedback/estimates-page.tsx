@@ -54,7 +54,7 @@ export function EstimatesPage({ unitSystem, canEdit }: { unitSystem: UnitSystem;
                 </div>
               </div>
             )}
-            <table className="w-full text-sm" aria-label={`History of ${e.lineName} ${e.code}`}>
+            <table className="w-full text-sm [&_td]:px-2 [&_th]:px-2" aria-label={`History of ${e.lineName} ${e.code}`}>
               <thead>
                 <tr className="text-left">
                   <th scope="col">Run</th>

@@ -33,7 +33,11 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
   const keyRef = useRef<HTMLInputElement>(null);
   const n = readingsUm.length;
   const spotNo = Math.floor(n / readingsPerSpot);
-  const nextLabel = `Area ${Math.floor(spotNo / spotsPerArea) + 1}, spot ${(spotNo % spotsPerArea) + 1}, reading ${(n % readingsPerSpot) + 1}`;
+  // ISO 19840 takes a flat list: the parent passes an unbounded spot size.
+  const flat = readingsPerSpot >= 1_000_000;
+  const nextLabel = flat
+    ? `reading ${n + 1}`
+    : `Area ${Math.floor(spotNo / spotsPerArea) + 1}, spot ${(spotNo % spotsPerArea) + 1}, reading ${(n % readingsPerSpot) + 1}`;
   function addKey() {
     if (key.trim() === "") return;
     const r = parseCell(key, sys);
@@ -49,7 +53,7 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
   // Paste
   const [paste, setPaste] = useState("");
   const [pasteErrors, setPasteErrors] = useState<CellError[]>([]);
-  function usePaste() {
+  function applyPaste() {
     const r = parseCells(paste, sys);
     setPasteErrors(r.errors);
     if (r.errors.length === 0 && r.valuesUm.length) {
@@ -88,7 +92,7 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
       error: (err) => setCsvProblem(`The file could not be read: ${err.message}`),
     });
   }
-  async function useCsv() {
+  async function applyCsv() {
     if (!rows) return;
     if (!mapping.readingColumn) {
       setCsvProblem("Choose the column that holds the readings.");
@@ -148,7 +152,7 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
               Remove last
             </button>
           </div>
-          <p id="dft-key-hint" className="mt-1 text-xs text-ink-faint">Press Enter after each reading; after {readingsPerSpot} readings the next spot starts.</p>
+          <p id="dft-key-hint" className="mt-1 text-xs text-ink-faint">{flat ? "Press Enter after each reading." : `Press Enter after each reading; after ${readingsPerSpot} readings the next spot starts.`}</p>
           {keyError && <p id="dft-key-err" className="field-error">{keyError}</p>}
         </div>
       )}
@@ -157,7 +161,7 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
         <div>
           <label htmlFor="dft-paste" className="label">{`Readings (${unit}), one per line — paste a spreadsheet column`}</label>
           <textarea id="dft-paste" className="field h-32 num" value={paste} onChange={(e) => setPaste(e.target.value)} />
-          <button type="button" className="btn-quiet mt-2" onClick={usePaste}>Use these readings</button>
+          <button type="button" className="btn-quiet mt-2" onClick={applyPaste}>Use these readings</button>
           {pasteErrors.length > 0 && (
             <div role="alert" className="mt-2 text-sm text-oxide">
               <p>Nothing was added. Fix these cells and try again:</p>
@@ -198,7 +202,7 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
                   Remember for {gauge.name}
                 </label>
               )}
-              <button type="button" className="btn-quiet" onClick={() => void useCsv()}>Use {Math.max(0, rows.length - 1)} rows</button>
+              <button type="button" className="btn-quiet" onClick={() => void applyCsv()}>Use {Math.max(0, rows.length - 1)} rows</button>
             </div>
           )}
           {csvProblem && <p role="alert" className="field-error">{csvProblem}</p>}
@@ -218,7 +222,7 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
           <ol className="flex flex-wrap gap-2 text-sm" aria-label="Readings by spot">
             {Array.from({ length: Math.ceil(n / readingsPerSpot) }, (_, s) => (
               <li key={s} className="rounded border border-plate-line bg-plate-raised px-2 py-1">
-                <span className="text-ink-faint">{`A${Math.floor(s / spotsPerArea) + 1} S${(s % spotsPerArea) + 1}: `}</span>
+                <span className="text-ink-faint">{flat ? "" : `A${Math.floor(s / spotsPerArea) + 1} S${(s % spotsPerArea) + 1}: `}</span>
                 <span className="num">{readingsUm.slice(s * readingsPerSpot, (s + 1) * readingsPerSpot).map(show).join(", ")}</span>
               </li>
             ))}

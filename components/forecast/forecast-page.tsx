@@ -100,7 +100,7 @@ export function ForecastPage({ unitSystem, canOrder }: Props) {
             </ul>
           )}
           <div className="overflow-x-auto">
-            <table className="w-full text-sm" aria-label="Material forecast">
+            <table className="w-full text-sm [&_td]:px-2 [&_th]:px-2" aria-label="Material forecast">
               <thead>
                 <tr className="text-left">
                   {canOrder && <th scope="col">Order</th>}

@@ -21,7 +21,8 @@ export function StockChart({ code, series, reorderPointKg, stockOutDate, unitSys
   const maxY = Math.max(1, ...series.map((p) => shown(p.stockKg)), shown(reorderPointKg)) * 1.1;
   const x = (i: number) => PAD.l + (i / Math.max(1, series.length - 1)) * (W - PAD.l - PAD.r);
   const y = (v: number) => PAD.t + (1 - v / maxY) * (H - PAD.t - PAD.b);
-  const path = series.map((p, i) => `${i === 0 ? "M" : "H"}${x(i).toFixed(1)} V${y(shown(p.stockKg)).toFixed(1)}`).join(" ");
+  // a step line: hold each day's closing stock until the next day
+  const path = series.map((p, i) => (i === 0 ? `M${x(0).toFixed(1)} ${y(shown(p.stockKg)).toFixed(1)}` : `H${x(i).toFixed(1)} V${y(shown(p.stockKg)).toFixed(1)}`)).join(" ");
   const unit = toDisplay("massKg", 1, unitSystem).unit;
   const ticks = [0, 0.5, 1].map((f) => f * maxY);
   const first = series[0];

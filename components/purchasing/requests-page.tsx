@@ -54,7 +54,7 @@ function RequestCard({ r, unitSystem, canEdit, onChange }: { r: RequestView; uni
         <span className="rounded bg-plate-sunk px-2 py-0.5 text-xs" data-status={r.status}>{STATUS_LABEL[r.status]}</span>
         <span className="text-xs text-ink-soft">sent {r.sentDate}</span>
       </div>
-      <table className="w-full text-sm" aria-label={`Lines of ${r.reference}`}>
+      <table className="w-full text-sm [&_td]:px-2 [&_th]:px-2" aria-label={`Lines of ${r.reference}`}>
         <thead>
           <tr className="text-left">
             <th scope="col">Coating</th>

@@ -108,6 +108,7 @@ export function RunDetailView({ id, parts, unitSystem: sys, currency, canPlan }:
         <div className="flex flex-wrap gap-2">
           <Link className="btn-quiet" href={`/runs/${run.id}/sheet`}>Run sheet</Link>
           <Link className="btn-quiet" href={`/runs/${run.id}/film`}>Film checks</Link>
+          {run.status === "done" && <Link className="btn-quiet" href={`/feedback/runs/${run.id}`}>Actual use</Link>}
           <Link className="btn-quiet" href={`/board?lineId=${run.lineId}&date=${run.date}`}>Day board</Link>
         </div>
       </div>

@@ -47,7 +47,8 @@ interface Props {
   canEdit: boolean;
   currentPart: PartRef | null;
   currentCoatingId: number | null;
-  onChanged: () => void;
+  /** refreshes the scenario list; resolves when it has the change */
+  onChanged: () => Promise<unknown>;
   onSaved: (id: number) => void;
   onUsePart: (part: PartRef, coatingId: number | null) => void;
 }
@@ -128,12 +129,12 @@ export function ScenarioEditor({ units, lines, scenarios, canEdit, currentPart, 
       const r = editing
         ? await sendJson<{ scenario: ScenarioView }>(`/api/scenarios/${editing.id}`, "PUT", body)
         : await sendJson<{ scenario: ScenarioView }>("/api/scenarios", "POST", body);
+      await onChanged();
+      if (!editing) onSaved(r.scenario.id);
       setFields({});
       setMessage({ text: `Saved ${r.scenario.name}${editing ? "" : "; it is ticked for the comparison above"}.`, error: false });
       setEditing(r.scenario);
       setWithPart(false);
-      onChanged();
-      if (!editing) onSaved(r.scenario.id);
     } catch (err) {
       if (err instanceof FetchError) {
         setFields(err.fields);
@@ -150,14 +151,15 @@ export function ScenarioEditor({ units, lines, scenarios, canEdit, currentPart, 
     try {
       if (what === "duplicate") {
         const r = await sendJson<{ scenario: ScenarioView }>(`/api/scenarios/${s.id}/duplicate`, "POST");
+        await onChanged();
         edit(r.scenario);
         setMessage({ text: `Copied as ${r.scenario.name}; edit it below.`, error: false });
       } else {
         await sendJson(`/api/scenarios/${s.id}`, "DELETE");
+        await onChanged();
         if (editing?.id === s.id) edit(null);
         setMessage({ text: `Deleted ${s.name}.`, error: false });
       }
-      onChanged();
     } catch (err) {
       setMessage({ text: err instanceof Error ? err.message : "That did not work; try again.", error: true });
     } finally {
@@ -222,7 +224,7 @@ export function ScenarioEditor({ units, lines, scenarios, canEdit, currentPart, 
                 <td className="py-1.5">
                   <div className="flex flex-wrap justify-end gap-1.5">
                     {s.part && (
-                      <button type="button" className="btn-quiet" onClick={() => onUsePart(s.part!, s.coatingId)} aria-label={`Use the part and powder of ${s.name} above`}>
+                      <button type="button" className="btn-quiet" onClick={() => onUsePart(s.part!, s.coatingId)} aria-label={`Use its part and powder above: ${s.name}`}>
                         Use its part
                       </button>
                     )}

@@ -371,7 +371,7 @@ export function ThroughputScreen({ units, currency, canEdit, referencePart }: Pr
         canEdit={canEdit}
         currentPart={partRef()}
         currentCoatingId={coating?.id ?? null}
-        onChanged={() => void scenarios.mutate()}
+        onChanged={() => scenarios.mutate()}
         onSaved={(id) => toggle(`scenario:${id}`, true)}
         onUsePart={(p, cId) => {
           if ("partId" in p) {

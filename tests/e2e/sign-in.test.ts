@@ -12,13 +12,13 @@ afterAll(async () => {
 
 // What each role's navigation shows (from the roles in the product brief); anything else must be absent.
 const everyone = ["Today", "Parts", "Coatings", "Lines", "Calculators", "Settings"];
-const planners = [...everyone, "Racking", "Runs", "Day board", "Throughput", "Oven profiles"];
+const floor = ["Racking", "Runs", "Day board", "Throughput", "Oven profiles", "Quality", "Utilisation"];
 const expected: Record<string, string[]> = {
-  admin: [...planners, "Users", "Mail outbox"],
-  manager: planners,
-  supervisor: planners,
+  admin: [...everyone, ...floor, "Forecast", "Purchasing", "Users", "Mail outbox"],
+  manager: [...everyone, ...floor, "Forecast"],
+  supervisor: [...everyone, ...floor],
   engineer: [...everyone, "Racking", "Oven profiles"],
-  purchaser: everyone,
+  purchaser: [...everyone, "Forecast", "Purchasing"],
   operator: [...everyone, "Runs"],
 };
 
