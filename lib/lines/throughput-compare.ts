@@ -490,8 +490,8 @@ function batchFigures(line: CompareBatchOven, input: ThroughputCompareInput, ctx
       : {
           kind: "batch-cycle",
           sentence:
-            `The batch cycle limits output: ${fmt(batch.cycleMin)} min a load (load ${fmt(line.loadMin)}, heat-up ${fmt(cure.heatUpMin!)} to ` +
-            `${words.temperature(cure.curePoint!.metalTempC)}, hold ${fmt(cure.holdMin!)}, unload ${fmt(line.unloadMin)} min) for ` +
+            `The batch cycle limits output: ${fmt(batch.cycleMin)} min a load (load ${fmt(line.loadMin)} min, heat-up ${fmt(cure.heatUpMin!)} min to ` +
+            `${words.temperature(cure.curePoint!.metalTempC)}, hold ${fmt(cure.holdMin!)} min, unload ${fmt(line.unloadMin)} min) for ` +
             `${line.racksPerLoad} racks × ${partsPerCarrier} parts.`,
           limitSpeedMPerMin: null,
         };

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { baseUrl, launch, shot, signInPage } from "./browser";
+import { baseUrl, launch, shot, signInPage, SHOTS } from "./browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -29,6 +29,7 @@ describe("throughput comparison", () => {
     const panel = page.getByRole("region", { name: "Throughput by line" });
     await panel.getByRole("cell", { name: LINE2 }).waitFor();
     expect(await panel.locator("tbody tr").count()).toBe(3);
+    await panel.screenshot({ path: `${SHOTS}/throughput-home-panel.png` });
 
     await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Throughput" }).click();
     await page.waitForURL(`${baseUrl()}/throughput`);

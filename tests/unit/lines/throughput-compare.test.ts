@@ -274,7 +274,7 @@ describe("throughputFigures on a batch oven", () => {
     expect(r.lineSpeedMPerMin).toBeNull();
     expect(r.limit.kind).toBe("batch-cycle");
     expect(r.limit.sentence).toBe(
-      "The batch cycle limits output: 40.3 min a load (load 12, heat-up 6.32 to 190 °C, hold 12, unload 10 min) for 4 racks × 62 parts.",
+      "The batch cycle limits output: 40.3 min a load (load 12 min, heat-up 6.32 min to 190 °C, hold 12 min, unload 10 min) for 4 racks × 62 parts.",
     );
   });
 
