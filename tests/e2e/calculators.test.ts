@@ -44,24 +44,24 @@ describe("calculators page", () => {
     await powder.getByLabel("Parts", { exact: true }).fill("50");
     await powder.getByLabel("Powder price").fill("8");
     // the units beside each box are the US ones
-    await expect(powder.getByText("(ft²)").count()).resolves.toBeGreaterThan(0);
-    await expect(powder.getByText("(mil)").count()).resolves.toBeGreaterThan(0);
+    await expect.poll(() => powder.getByText("(ft²)").count(), { timeout: 15_000 }).toBeGreaterThan(0);
+    await expect.poll(() => powder.getByText("(mil)").count(), { timeout: 15_000 }).toBeGreaterThan(0);
 
     const theoretical = powder.getByTestId("powder-theoretical");
-    await expect(theoretical.textContent()).resolves.toMatch(/ft²\/lb$/);
+    await expect.poll(() => theoretical.textContent(), { timeout: 15_000 }).toMatch(/ft²\/lb$/);
     // source: Products Finishing, "Coverage of Powder": ft²/lb = 192.3 / (SG × mil) = 192.3 / 3 = 64.1
     near(await numberIn(theoretical), 192.3 / (1.5 * 2), 1e-3);
     // hand working: 64.07 × 0.6 = 38.44 ft²/lb; 10 ft² / 38.44 = 0.2601 lb per part; × 50 = 13.01 lb; × $8 = $104.07
-    await expect(powder.getByTestId("powder-total").textContent()).resolves.toMatch(/ lb$/);
+    await expect.poll(() => powder.getByTestId("powder-total").textContent(), { timeout: 15_000 }).toMatch(/ lb$/);
     near(await numberIn(powder.getByTestId("powder-total")), (50 * 10) / ((192.2 / 3) * 0.6), 2e-3);
     near(await numberIn(powder.getByTestId("powder-cost")), (8 * 50 * 10) / ((192.2 / 3) * 0.6), 2e-3);
     await shot(page, "calculators-powder-us");
 
     await page.getByText("Metric", { exact: true }).click();
     // 2 mil = 50.8 µm and 10 ft² = 0.92903 m² (NIST SP 811, exact factors)
-    await expect(powder.getByLabel("Film build").inputValue()).resolves.toBe("50.8");
-    await expect(powder.getByLabel("Coated area per part").inputValue()).resolves.toBe("0.92903");
-    await expect(theoretical.textContent()).resolves.toMatch(/m²\/kg$/);
+    await expect.poll(() => powder.getByLabel("Film build").inputValue(), { timeout: 15_000 }).toBe("50.8");
+    await expect.poll(() => powder.getByLabel("Coated area per part").inputValue(), { timeout: 15_000 }).toBe("0.92903");
+    await expect.poll(() => theoretical.textContent(), { timeout: 15_000 }).toMatch(/m²\/kg$/);
     // source: REFERENCES.md, m²/kg = 1000 / (SG × µm) = 1000 / (1.5 × 50.8) = 13.12
     near(await numberIn(theoretical), 1000 / (1.5 * 50.8), 5e-4);
     // 13.01 lb = 5.902 kg (1 lb = 0.45359237 kg); the cost does not move with the units
@@ -72,14 +72,14 @@ describe("calculators page", () => {
     // field-level validation in the displayed units: 150 % is refused with what to enter
     const fpe = powder.getByLabel("First-pass transfer efficiency");
     await fpe.fill("150");
-    await expect(fpe.getAttribute("aria-invalid")).resolves.toBe("true");
+    await expect.poll(() => fpe.getAttribute("aria-invalid"), { timeout: 15_000 }).toBe("true");
     await powder.getByText("Enter a number greater than 0 and at most 100 %.").waitFor();
     await powder.getByText("Correct the marked fields").waitFor();
     await powder.screenshot({ path: path.join(SHOTS, "calculators-powder-invalid-section.png") });
     await fpe.fill("abc");
     await powder.getByText("“abc” is not a number").waitFor();
     await fpe.fill("60");
-    await expect(fpe.getAttribute("aria-invalid")).resolves.toBeNull();
+    await expect.poll(() => fpe.getAttribute("aria-invalid"), { timeout: 15_000 }).toBeNull();
     await powder.getByText("combustible dust", { exact: false }).first().waitFor();
 
     // the cure section refuses a target at the air temperature, in °F after a flip
@@ -87,7 +87,7 @@ describe("calculators page", () => {
     const cure = page.getByRole("region", { name: "Cure and metal heat-up" });
     await cure.getByLabel("Oven air temperature").fill("400");
     await cure.getByLabel("Cure metal temperature").fill("400");
-    await expect(cure.getByLabel("Cure metal temperature").getAttribute("aria-invalid")).resolves.toBe("true");
+    await expect.poll(() => cure.getByLabel("Cure metal temperature").getAttribute("aria-invalid"), { timeout: 15_000 }).toBe("true");
     await cure.getByText("Enter a target below the oven air temperature", { exact: false }).waitFor();
     await cure.getByLabel("Cure metal temperature").fill("380");
     await cure.getByTestId("cure-total").waitFor();
@@ -96,7 +96,7 @@ describe("calculators page", () => {
     const line = page.getByRole("region", { name: "Line throughput" });
     await line.getByLabel("Line speed").fill("10");
     await line.getByLabel("Carrier pitch").fill("24");
-    await expect(line.getByTestId("line-carriers").textContent()).resolves.toBe("300");
+    await expect.poll(() => line.getByTestId("line-carriers").textContent(), { timeout: 15_000 }).toBe("300");
 
     expect((page as Page & { consoleErrors?: string[] }).consoleErrors ?? []).toEqual([]);
     await page.context().close();
@@ -112,31 +112,29 @@ describe("calculators page", () => {
     // what a paste of a spreadsheet block gives: tabs between cells, a title row, a typo "7O"
     await box.fill("R1\tR2\tR3\n70\t72\t71\n68\t75\t70\n40\t45\t44\n72\t7O\t74\n71\t69\t73");
     await film.getByText("Line 5, cell 2: “7O” is not a number.").waitFor();
-    await expect(box.getAttribute("aria-invalid")).resolves.toBe("true");
+    await expect.poll(() => box.getAttribute("aria-invalid"), { timeout: 15_000 }).toBe("true");
     await shot(page, "calculators-film-bad-cell");
     await film.screenshot({ path: path.join(SHOTS, "calculators-film-bad-cell-section.png") });
 
     await box.fill("R1\tR2\tR3\n70\t72\t71\n68\t75\t70\n40\t45\t44\n72\t70\t74\n71\t69\t73");
-    await expect(box.getAttribute("aria-invalid")).resolves.toBeNull();
+    await expect.poll(() => box.getAttribute("aria-invalid"), { timeout: 15_000 }).toBeNull();
     // source: SSPC-PA 2 default restriction: no spot below 80 % of the minimum (0.8 × 60 = 48 µm);
     // spot 3 averages (40 + 45 + 44) / 3 = 43 µm; the area averages 65.6 µm, inside 60–90
-    await expect(film.getByTestId("film-verdict").textContent()).resolves.toBe("Fail");
-    const reasons = await film.getByTestId("film-reasons").textContent();
-    expect(reasons).toContain("Area 1, spot 3 at 43 µm is below 80 % of the 60 µm minimum (48 µm).");
+    await expect.poll(() => film.getByTestId("film-verdict").textContent(), { timeout: 15_000 }).toBe("Fail");
+    await expect.poll(() => film.getByTestId("film-reasons").textContent(), { timeout: 15_000 }).toContain("Area 1, spot 3 at 43 µm is below 80 % of the 60 µm minimum (48 µm).");
     await film.getByRole("row").filter({ hasText: "below 80 % of the minimum" }).waitFor();
-    await expect(film.getByRole("row").filter({ hasText: "below 80 % of the minimum" }).count()).resolves.toBe(1);
+    await expect.poll(() => film.getByRole("row").filter({ hasText: "below 80 % of the minimum" }).count(), { timeout: 15_000 }).toBe(1);
     await film.scrollIntoViewIfNeeded();
     await shot(page, "calculators-film-fail");
     await film.screenshot({ path: path.join(SHOTS, "calculators-film-fail-section.png") });
 
     // in US units the same readings are re-shown in mil and the explanation follows
     await page.getByText("US customary", { exact: true }).click();
-    await expect(box.inputValue()).resolves.toContain("1.5748\t1.77165\t1.73228");
-    const usReasons = await film.getByTestId("film-reasons").textContent();
-    expect(usReasons).toContain("spot 3 at 1.69 mil is below 80 % of the 2.36 mil minimum (1.89 mil)");
+    await expect.poll(() => box.inputValue(), { timeout: 15_000 }).toContain("1.5748\t1.77165\t1.73228");
+    await expect.poll(() => film.getByTestId("film-reasons").textContent(), { timeout: 15_000 }).toContain("spot 3 at 1.69 mil is below 80 % of the 2.36 mil minimum (1.89 mil)");
     await page.getByText("Metric", { exact: true }).click();
     // back in µm the text is exactly what was pasted
-    await expect(box.inputValue()).resolves.toBe("R1\tR2\tR3\n70\t72\t71\n68\t75\t70\n40\t45\t44\n72\t70\t74\n71\t69\t73");
+    await expect.poll(() => box.inputValue(), { timeout: 15_000 }).toBe("R1\tR2\tR3\n70\t72\t71\n68\t75\t70\n40\t45\t44\n72\t70\t74\n71\t69\t73");
 
     // a CSV file loads through the same parser; ISO 19840 on a flat list that passes
     await film.getByRole("radio", { name: /ISO 19840/ }).check();
@@ -148,8 +146,8 @@ describe("calculators page", () => {
       buffer: Buffer.from("reading\n75\n80\n63\n78\n82\n65\n79\n81\n85\n82\n"),
     });
     await film.getByText("Loaded gauge-export.csv").waitFor();
-    await expect(film.getByTestId("film-verdict").textContent()).resolves.toBe("Pass");
-    await expect(film.getByTestId("film-mean").textContent()).resolves.toBe("77 µm");
+    await expect.poll(() => film.getByTestId("film-verdict").textContent(), { timeout: 15_000 }).toBe("Pass");
+    await expect.poll(() => film.getByTestId("film-mean").textContent(), { timeout: 15_000 }).toBe("77 µm");
     expect((page as Page & { consoleErrors?: string[] }).consoleErrors ?? []).toEqual([]);
     await page.context().close();
   });
@@ -162,7 +160,7 @@ describe("calculators page", () => {
     await page.getByText("NFPA 652").first().waitFor();
     await page.getByText("1910.147", { exact: false }).first().waitFor();
     await page.getByText("NFPA 86", { exact: false }).first().waitFor();
-    await expect(page.getByText("How this is computed:").count()).resolves.toBe(5);
+    await expect.poll(() => page.getByText("How this is computed:").count(), { timeout: 15_000 }).toBe(5);
     await shot(page, "calculators-page");
     await page.context().close();
   });
