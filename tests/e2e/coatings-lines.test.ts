@@ -24,10 +24,10 @@ describe("coatings library and lines", () => {
     await table.getByRole("link", { name: /PP-420/ }).waitFor();
     expect(await table.locator("tbody tr").count()).toBe(6);
     const grey = table.locator('tr[data-code="PP-420"]');
-    await expect(grey.locator('[data-mark="low-stock"]').textContent()).resolves.toBe("Low stock");
+    await expect.poll(() => grey.locator('[data-mark="low-stock"]').textContent(), { timeout: 15_000 }).toBe("Low stock");
     // 40 kg shown in pounds: 40 / 0.45359237 = 88.18 lb
-    await expect(grey.textContent()).resolves.toContain("88.18 lb");
-    await expect(table.locator('tr[data-code="PP-430"] [data-mark="near-expiry"]').count()).resolves.toBe(1);
+    await expect.poll(() => grey.textContent(), { timeout: 15_000 }).toContain("88.18 lb");
+    await expect.poll(() => table.locator('tr[data-code="PP-430"] [data-mark="near-expiry"]').count(), { timeout: 15_000 }).toBe(1);
     await shot(page, "coatings-table-purchaser");
 
     await page.getByLabel("Kind").selectOption("e-coat");
@@ -45,7 +45,7 @@ describe("coatings library and lines", () => {
     const lots = page.getByRole("region", { name: "Stock by lot" });
     await lots.getByRole("cell", { name: "FPW-8123" }).waitFor();
     // 220 lb = 99.79 kg; with the 40 kg already in stock the powder is above its 120 kg reorder point
-    await expect(page.locator('[data-mark="low-stock"]').count()).resolves.toBe(0);
+    await expect.poll(() => page.locator('[data-mark="low-stock"]').count(), { timeout: 15_000 }).toBe(0);
     await shot(page, "coating-lot-received");
 
     // a negative quantity is refused with the field named
@@ -53,7 +53,7 @@ describe("coatings library and lines", () => {
     await page.getByLabel("Quantity (lb)").fill("-5");
     await page.getByRole("button", { name: "Receive lot" }).click();
     await page.getByText("Enter a quantity above 0.").waitFor();
-    await expect(lots.getByRole("cell", { name: "FPW-8124" }).count()).resolves.toBe(0);
+    await expect.poll(() => lots.getByRole("cell", { name: "FPW-8124" }).count(), { timeout: 15_000 }).toBe(0);
     expect(consoleErrors(page).filter((e) => !e.includes("400"))).toEqual([]);
 
     // the editor opens in pounds and mils and saves back without drifting the stored metric values
@@ -77,7 +77,7 @@ describe("coatings library and lines", () => {
     await page.getByRole("heading", { level: 1, name: "Line 1 — E-coat and powder" }).waitFor();
     await page.getByTestId("line-timeline").waitFor();
     // 224 m of stages at the usual 3 m/min: 74.7 min from load to unload
-    await expect(page.getByTestId("timeline-total").textContent()).resolves.toBe("74.7 min");
+    await expect.poll(() => page.getByTestId("timeline-total").textContent(), { timeout: 15_000 }).toBe("74.7 min");
     expect(await page.getByTestId("line-timeline").locator(":scope > div").count()).toBe(15);
     await shot(page, "line-timeline-manager");
 
@@ -86,10 +86,10 @@ describe("coatings library and lines", () => {
     await page.getByLabel("Section thickness (in)").fill("0.25");
     await page.getByRole("button", { name: "Check cure" }).click();
     const result = page.getByTestId("cure-result");
-    await expect(result.getAttribute("data-pass")).resolves.toBe("false");
+    await expect.poll(() => result.getAttribute("data-pass"), { timeout: 15_000 }).toBe("false");
     await result.getByText("Does not cure").first().waitFor();
     const thickNeeded = parseFloat((await page.getByTestId("needed").textContent())!);
-    await expect(page.getByTestId("dwell").textContent()).resolves.toBe("20 min");
+    await expect.poll(() => page.getByTestId("dwell").textContent(), { timeout: 15_000 }).toBe("20 min");
     await shot(page, "cure-check-thick-fails");
 
     // 0.06 in = 1.52 mm: heats up in under 5 min and cures with time to spare
@@ -98,9 +98,9 @@ describe("coatings library and lines", () => {
     await page.waitForFunction(() => document.querySelector('[data-testid="cure-result"]')?.getAttribute("data-pass") === "true");
     const thinNeeded = parseFloat((await page.getByTestId("needed").textContent())!);
     expect(thickNeeded).toBeGreaterThan(thinNeeded + 10);
-    await expect(page.getByTestId("margin").textContent()).resolves.toMatch(/^\+/);
+    await expect.poll(() => page.getByTestId("margin").textContent(), { timeout: 15_000 }).toMatch(/^\+/);
     const history = page.getByTestId("cure-history");
-    await expect(history.locator("tbody tr").count()).resolves.toBe(2);
+    await expect.poll(() => history.locator("tbody tr").count(), { timeout: 15_000 }).toBe(2);
     await shot(page, "cure-check-thin-passes");
 
     // slowing the line to its slowest speed gives the thick part enough dwell
@@ -108,8 +108,8 @@ describe("coatings library and lines", () => {
     await page.getByLabel("Section thickness (in)").fill("0.25");
     await page.getByRole("button", { name: "Check cure" }).click();
     await history.locator("tbody tr").nth(2).waitFor();
-    await expect(result.getAttribute("data-pass")).resolves.toBe("true");
-    await expect(page.getByTestId("dwell").textContent()).resolves.toBe("40 min");
+    await expect.poll(() => result.getAttribute("data-pass"), { timeout: 15_000 }).toBe("true");
+    await expect.poll(() => page.getByTestId("dwell").textContent(), { timeout: 15_000 }).toBe("40 min");
     expect(consoleErrors(page)).toEqual([]);
 
     // the line editor opens in feet and °F and saves back without drifting the stored values
@@ -137,7 +137,7 @@ describe("coatings library and lines", () => {
     await page.getByTestId("cycle").waitFor();
     await shot(page, "batch-oven-cure-check");
     await page.goto(`${baseUrl()}/lines/new`);
-    await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("Not for your role");
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent(), { timeout: 15_000 }).toBe("Not for your role");
     await page.context().close();
   });
 });

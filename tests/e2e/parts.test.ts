@@ -101,16 +101,16 @@ describe("parts catalogue", () => {
     // Read as mm the block is only 4 mm long: the form asks to check the unit.
     const check = page.getByTestId("unit-check");
     await check.waitFor({ timeout: 30_000 });
-    await expect(check.textContent()).resolves.toMatch(/only 4 mm/);
-    await expect(page.getByRole("button", { name: "Save part" }).isDisabled()).resolves.toBe(true);
+    await expect.poll(() => check.textContent(), { timeout: 15_000 }).toMatch(/only 4 mm/);
+    await expect.poll(() => page.getByRole("button", { name: "Save part" }).isDisabled(), { timeout: 15_000 }).toBe(true);
     await shot(page, "parts-unit-check");
     await check.getByRole("button", { name: "It was drawn in inches" }).click();
     await check.waitFor({ state: "detached" });
 
     // 1 in = 25.4 mm (NIST SP 811): 2(8 + 4 + 2) = 28 in² = 0.018 064 48 m²; 8 in³ = 0.131 096 512 L.
     await page.waitForFunction(() => document.querySelector("[data-testid=mesh-area]")?.textContent === "0.01806 m²", null, { timeout: 15_000 });
-    await expect(page.getByTestId("mesh-volume").textContent()).resolves.toBe("0.1311 L");
-    await expect(page.getByTestId("mesh-box").textContent()).resolves.toBe("101.6 × 50.8 × 25.4 mm");
+    await expect.poll(() => page.getByTestId("mesh-volume").textContent(), { timeout: 15_000 }).toBe("0.1311 L");
+    await expect.poll(() => page.getByTestId("mesh-box").textContent(), { timeout: 15_000 }).toBe("101.6 × 50.8 × 25.4 mm");
 
     // The 3D preview loads on its own (three.js fetched only now) and draws a canvas.
     const preview = page.getByTestId("part-preview");
@@ -118,16 +118,16 @@ describe("parts catalogue", () => {
     expect(await preview.locator("canvas").count()).toBe(1);
     // steel 7850 kg/m³ × 131.1 cm³ = 1.029 kg
     await page.waitForFunction(() => document.querySelector("[data-testid=live-mass]")?.textContent === "1.029 kg", null, { timeout: 15_000 });
-    await expect(page.getByTestId("live-area").textContent()).resolves.toBe("0.01806 m²");
+    await expect.poll(() => page.getByTestId("live-area").textContent(), { timeout: 15_000 }).toBe("0.01806 m²");
     await page.waitForTimeout(500);
     await shot(page, "parts-upload-measured");
 
     await page.getByRole("button", { name: "Save part" }).click();
     await page.waitForURL(/\/parts\/[0-9a-f-]{36}$/);
     await page.getByRole("heading", { level: 1 }).waitFor();
-    await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("BC-7001 · Test mounting block");
-    await expect(page.getByTestId("part-coated").textContent()).resolves.toBe("0.01806 m²");
-    await expect(page.getByTestId("part-mass").textContent()).resolves.toBe("1.029 kg");
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent(), { timeout: 15_000 }).toBe("BC-7001 · Test mounting block");
+    await expect.poll(() => page.getByTestId("part-coated").textContent(), { timeout: 15_000 }).toBe("0.01806 m²");
+    await expect.poll(() => page.getByTestId("part-mass").textContent(), { timeout: 15_000 }).toBe("1.029 kg");
     await page.waitForFunction(() => document.querySelector("[data-testid=part-preview]")?.getAttribute("data-state") === "ready", null, { timeout: 30_000 });
     await page.waitForTimeout(500);
     await shot(page, "parts-detail-mesh");
@@ -146,8 +146,8 @@ describe("parts catalogue", () => {
     // 2·1000·500 + 2(1000 + 500)·3 = 1 009 000 mm² (both faces and the edges; common practice)
     await page.waitForFunction(() => document.querySelector("[data-testid=live-area]")?.textContent === "1.009 m²", null, { timeout: 15_000 });
     // 1000·500·3 mm³ = 1.5 L × 7850 kg/m³ = 11.78 kg; the thickness also filled the section thickness
-    await expect(page.getByTestId("live-mass").textContent()).resolves.toBe("11.78 kg");
-    await expect(page.getByLabel("Section thickness (mm)").inputValue()).resolves.toBe("3");
+    await expect.poll(() => page.getByTestId("live-mass").textContent(), { timeout: 15_000 }).toBe("11.78 kg");
+    await expect.poll(() => page.getByLabel("Section thickness (mm)").inputValue(), { timeout: 15_000 }).toBe("3");
     await page.getByRole("radio", { name: /^Formula/ }).check();
     await page.getByLabel("Value of L (mm)").fill("100");
     await page.getByLabel("Value of W (mm)").fill("50");
@@ -177,22 +177,22 @@ describe("parts catalogue", () => {
     fs.writeFileSync(file, csv);
     await page.getByLabel("CSV file").setInputFiles(file);
     await page.getByTestId("import-rows").waitFor({ timeout: 15_000 });
-    await expect(page.getByTestId("import-summary").textContent()).resolves.toMatch(/3 rows: 2 valid, 1 with problems/);
+    await expect.poll(() => page.getByTestId("import-summary").textContent(), { timeout: 15_000 }).toMatch(/3 rows: 2 valid, 1 with problems/);
     const bad = page.locator("[data-testid=import-rows] tr[data-valid=false]");
     expect(await bad.count()).toBe(1);
-    await expect(bad.getAttribute("data-row")).resolves.toBe("3");
-    await expect(bad.textContent()).resolves.toMatch(/Row 3, areaM2: Enter the outside area as a number above 0/);
+    await expect.poll(() => bad.getAttribute("data-row"), { timeout: 15_000 }).toBe("3");
+    await expect.poll(() => bad.textContent(), { timeout: 15_000 }).toMatch(/Row 3, areaM2: Enter the outside area as a number above 0/);
 
     await page.getByRole("button", { name: "Import all 3 rows" }).click();
     const refused = page.getByTestId("import-refused");
     await refused.waitFor({ timeout: 15_000 });
-    await expect(refused.textContent()).resolves.toMatch(/Nothing was imported: 1 of 3 rows have problems\. Row 3: areaM2/);
+    await expect.poll(() => refused.textContent(), { timeout: 15_000 }).toMatch(/Nothing was imported: 1 of 3 rows have problems\. Row 3: areaM2/);
     expect(await partCount(page)).toBe(before);
     await shot(page, "parts-import-refused");
 
     await page.getByRole("button", { name: "Import only the 2 valid rows" }).click();
     await page.getByTestId("import-done").waitFor({ timeout: 15_000 });
-    await expect(page.getByTestId("import-done").textContent()).resolves.toMatch(/Imported 2 parts; 1 row was left out/);
+    await expect.poll(() => page.getByTestId("import-done").textContent(), { timeout: 15_000 }).toMatch(/Imported 2 parts; 1 row was left out/);
     expect(await partCount(page)).toBe(before + 2);
     await shot(page, "parts-import-done");
     await page.context().close();
@@ -203,9 +203,9 @@ describe("parts catalogue", () => {
     await page.goto(`${baseUrl()}/racking`);
     await page.getByLabel("Take the part from the catalogue").selectOption({ label: "BC-5020 · Bike-rack hoop, 48.3 mm tube" });
     // the hoop's mesh box: x 648.3 → length, y 48.3 → width, z 974.15 → height
-    await expect(page.getByLabel("Part length (mm)", { exact: true }).inputValue()).resolves.toBe("648.3");
-    await expect(page.getByLabel("Part width (mm)", { exact: true }).inputValue()).resolves.toBe("48.3");
-    await expect(page.getByLabel("Part height (mm)", { exact: true }).inputValue()).resolves.toBe("974.2");
+    await expect.poll(() => page.getByLabel("Part length (mm)", { exact: true }).inputValue(), { timeout: 15_000 }).toBe("648.3");
+    await expect.poll(() => page.getByLabel("Part width (mm)", { exact: true }).inputValue(), { timeout: 15_000 }).toBe("48.3");
+    await expect.poll(() => page.getByLabel("Part height (mm)", { exact: true }).inputValue(), { timeout: 15_000 }).toBe("974.2");
     await page.getByText("The 3D view draws the part's own shape while the box matches it.").waitFor({ timeout: 30_000 });
     await page.getByTestId("rack-view").locator("canvas").waitFor({ timeout: 30_000 });
     await page.waitForTimeout(1000);
@@ -219,8 +219,8 @@ describe("parts catalogue", () => {
     await page.getByRole("link", { name: "BC-4105" }).click();
     await page.getByTestId("part-coated").waitFor();
     // 1.404 784 m² ÷ 0.092 903 04 m²/ft² = 15.12 ft²; 21.848 kg ÷ 0.453 592 37 kg/lb = 48.17 lb (NIST SP 811)
-    await expect(page.getByTestId("part-coated").textContent()).resolves.toBe("15.12 ft²");
-    await expect(page.getByTestId("part-mass").textContent()).resolves.toBe("48.17 lb");
+    await expect.poll(() => page.getByTestId("part-coated").textContent(), { timeout: 15_000 }).toBe("15.12 ft²");
+    await expect.poll(() => page.getByTestId("part-mass").textContent(), { timeout: 15_000 }).toBe("48.17 lb");
     // 800 mm ÷ 25.4 = 31.5 in
     await page.getByText("31.5 in", { exact: true }).first().waitFor();
     await shot(page, "parts-detail-us");
@@ -235,7 +235,7 @@ describe("parts catalogue", () => {
     expect(await page.getByRole("link", { name: "Import CSV" }).count()).toBe(0);
     expect(await page.getByRole("link", { name: "Export CSV" }).count()).toBe(1);
     await page.goto(`${baseUrl()}/parts/new`);
-    await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("Not for your role");
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent(), { timeout: 15_000 }).toBe("Not for your role");
     await page.context().close();
   });
 });

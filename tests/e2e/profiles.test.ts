@@ -70,21 +70,21 @@ describe("oven profiles", () => {
     await page.getByLabel("New logger's name or serial").fill("Logger 12 (SN 51877)");
     await page.getByLabel("Logger file (CSV)").setInputFiles(bad);
     await page.getByTestId("column-mapping").waitFor();
-    await expect(page.getByTestId("file-facts").textContent()).resolves.toContain("2 logger lines above the header skipped");
+    await expect.poll(() => page.getByTestId("file-facts").textContent(), { timeout: 15_000 }).toContain("2 logger lines above the header skipped");
     // the columns were guessed: time, air, two part probes
-    await expect(page.getByLabel("What column Elapsed (s) holds").inputValue()).resolves.toBe("time");
-    await expect(page.getByLabel("What column T1 Air (°C) holds").inputValue()).resolves.toBe("air");
+    await expect.poll(() => page.getByLabel("What column Elapsed (s) holds").inputValue(), { timeout: 15_000 }).toBe("time");
+    await expect.poll(() => page.getByLabel("What column T1 Air (°C) holds").inputValue(), { timeout: 15_000 }).toBe("air");
     await page.getByLabel("Part under T2 (°C)").fill("Thin bracket");
     await page.getByLabel("Section thickness under T2 (°C) (mm)").fill("1.5");
     await page.getByLabel("Part under T3 (°C)").fill("Thick base plate");
     await page.getByLabel("Section thickness under T3 (°C) (mm)").fill("8");
     await page.getByLabel("Line", { exact: true }).selectOption({ label: "Line 1 — E-coat and powder" });
-    await expect(page.getByLabel("Oven", { exact: true }).inputValue()).resolves.toBe("13");
+    await expect.poll(() => page.getByLabel("Oven", { exact: true }).inputValue(), { timeout: 15_000 }).toBe("13");
     await page.getByLabel("Coating (its cure schedule)").selectOption({ label: "PP-410 · Outdoor polyester, gloss (Bramble Green)" });
     await page.getByRole("button", { name: "Check the file" }).click();
     const problems = page.getByTestId("problems");
     await problems.getByText('Row 83, column "T3 (°C)": "ERR" is not a number.').waitFor();
-    await expect(page.locator('[data-testid="preview-table"] td[data-bad]').textContent()).resolves.toBe("ERR");
+    await expect.poll(() => page.locator('[data-testid="preview-table"] td[data-bad]').textContent(), { timeout: 15_000 }).toBe("ERR");
     expect(await page.getByRole("button", { name: "Save profile" }).isDisabled()).toBe(true);
     await shot(page, "profile-import-bad-cell");
 
@@ -105,15 +105,15 @@ describe("oven profiles", () => {
 
     const thin = page.locator('[data-testid="probe-verdict"][data-probe="Thin bracket"]');
     const thick = page.locator('[data-testid="probe-verdict"][data-probe="Thick base plate"]');
-    await expect(thin.getAttribute("data-pass")).resolves.toBe("true");
+    await expect.poll(() => thin.getAttribute("data-pass"), { timeout: 15_000 }).toBe("true");
     await thin.getByText("Cured", { exact: true }).waitFor();
-    await expect(thick.getAttribute("data-pass")).resolves.toBe("false");
+    await expect.poll(() => thick.getAttribute("data-pass"), { timeout: 15_000 }).toBe("false");
     await thick.getByText("Under-cured", { exact: true }).waitFor();
-    await expect(thick.getByTestId("verdict-reasons").textContent()).resolves.toContain("never reached 190 °C, the lowest temperature of the cure schedule");
-    await expect(thick.getByTestId("cure-index").textContent()).resolves.toBe("0 %");
+    await expect.poll(() => thick.getByTestId("verdict-reasons").textContent(), { timeout: 15_000 }).toContain("never reached 190 °C, the lowest temperature of the cure schedule");
+    await expect.poll(() => thick.getByTestId("cure-index").textContent(), { timeout: 15_000 }).toBe("0 %");
     // the chart arrives after the verdicts (loaded on its own)
     await page.locator("figure .recharts-surface").first().waitFor();
-    await expect(page.locator("figure .recharts-reference-area").count()).resolves.toBe(1);
+    await expect.poll(() => page.locator("figure .recharts-reference-area").count(), { timeout: 15_000 }).toBe(1);
     await shot(page, "profile-verdicts");
 
     // the thin bracket's fit: true h 24 W/m²K, fitted within 3 %
@@ -125,7 +125,7 @@ describe("oven profiles", () => {
     await thinFit.getByRole("button", { name: "Yes, store it" }).click();
     await page.getByTestId("apply-message").getByText(/^Stored: Thin bracket's/).waitFor();
     await page.getByTestId("fit-history").locator("tbody tr").first().waitFor();
-    await expect(page.getByTestId("fit-history").locator("tbody tr").first().textContent()).resolves.toContain("30 W/(m²·K) →");
+    await expect.poll(() => page.getByTestId("fit-history").locator("tbody tr").first().textContent(), { timeout: 15_000 }).toContain("30 W/(m²·K) →");
     await shot(page, "profile-fit-stored");
 
     await page.emulateMedia({ media: "print" });
@@ -149,7 +149,7 @@ describe("oven profiles", () => {
     await page.getByRole("link", { name: "Line 1 powder oven — bench brackets and base plates" }).click();
     const thick = page.locator('[data-testid="probe-verdict"][data-probe="Thick base plate"]');
     // 190 °C = 374 °F (NIST SP 811: 190 × 1.8 + 32)
-    await expect(thick.getByTestId("verdict-reasons").textContent()).resolves.toContain("never reached 374 °F");
+    await expect.poll(() => thick.getByTestId("verdict-reasons").textContent(), { timeout: 15_000 }).toContain("never reached 374 °F");
     await page.locator("figure .recharts-surface").first().waitFor();
     await shot(page, "profile-manager-us-units");
     expect(consoleErrors(page)).toEqual([]);
@@ -160,7 +160,7 @@ describe("oven profiles", () => {
     const page = await signInPage(browser, "operator@bramblecote.test");
     expect(await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Oven profiles" }).count()).toBe(0);
     await page.goto(`${baseUrl()}/profiles`);
-    await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("Not for your role");
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent(), { timeout: 15_000 }).toBe("Not for your role");
     await page.context().close();
   });
 });

@@ -61,7 +61,7 @@ describe("racking planner", () => {
       "Clearance between parts (mm)": "0",
     });
     await countIs(page, 15);
-    await expect(page.getByTestId("plan-reason").textContent()).resolves.toBe(
+    await expect.poll(() => page.getByTestId("plan-reason").textContent(), { timeout: 15_000 }).toBe(
       "Space limits the carrier to 15 parts: 5 along travel × 3 tiers × 1 across, no clearance.",
     );
     // The 3D view is fetched after the plan (three.js loads only here): wait for its canvas.
@@ -69,7 +69,7 @@ describe("racking planner", () => {
     expect(await view(page).locator("canvas").count()).toBe(1);
     await waitForScene(page, 15);
     expect(await drawCalls(page)).toBeGreaterThan(0);
-    await expect(page.getByTestId("summary-count").textContent()).resolves.toBe("15");
+    await expect.poll(() => page.getByTestId("summary-count").textContent(), { timeout: 15_000 }).toBe("15");
     // Tiers in the printable list: lower faces at 0, 300 and 600 mm, five parts each.
     const tiers = await page.getByTestId("tier-table").locator("tbody tr").allTextContents();
     expect(tiers).toEqual(["10 mm5300 mm", "2300 mm5300 mm", "3600 mm5300 mm"]);
@@ -97,10 +97,10 @@ describe("racking planner", () => {
     const picker = page.getByLabel("Take the window from a line");
     if ((await picker.count()) > 0) {
       await picker.selectOption({ label: "Line 1 — E-coat and powder (conveyor carrier)" });
-      await expect(page.getByLabel("Window width, along travel (mm)").inputValue()).resolves.toBe("500");
-      await expect(page.getByLabel("Load limit (kg)").inputValue()).resolves.toBe("45");
-      await expect(page.getByLabel("Line speed (m/min)").inputValue()).resolves.toBe("3");
-      await expect(page.getByLabel("Carrier pitch (m)").inputValue()).resolves.toBe("0.6");
+      await expect.poll(() => page.getByLabel("Window width, along travel (mm)").inputValue(), { timeout: 15_000 }).toBe("500");
+      await expect.poll(() => page.getByLabel("Load limit (kg)").inputValue(), { timeout: 15_000 }).toBe("45");
+      await expect.poll(() => page.getByLabel("Line speed (m/min)").inputValue(), { timeout: 15_000 }).toBe("3");
+      await expect.poll(() => page.getByLabel("Carrier pitch (m)").inputValue(), { timeout: 15_000 }).toBe("0.6");
       await page.getByTestId("per-line-result").getByText("300", { exact: true }).waitFor();
       await fill(page, { "Window width, along travel (mm)": "1000", "Window height (mm)": "1000", "Window depth, across (mm)": "100" });
     } else {
@@ -156,10 +156,10 @@ describe("racking planner", () => {
     const page = await signInPage(browser, "manager@bramblecote.test");
     await page.goto(`${baseUrl()}/racking`);
     // The opening example is 300 × 200 × 100 mm = 11.81 × 7.874 × 3.937 in (1 in = 25.4 mm).
-    await expect(page.getByLabel("Part length (in)", { exact: true }).inputValue()).resolves.toBe("11.81");
-    await expect(page.getByLabel("Part mass (lb)", { exact: true }).inputValue()).resolves.toBe("2.646");
+    await expect.poll(() => page.getByLabel("Part length (in)", { exact: true }).inputValue(), { timeout: 15_000 }).toBe("11.81");
+    await expect.poll(() => page.getByLabel("Part mass (lb)", { exact: true }).inputValue(), { timeout: 15_000 }).toBe("2.646");
     await page.getByTestId("plan-count").waitFor();
-    await expect(page.getByTestId("plan-reason").textContent()).resolves.toMatch(/in clearance|no clearance/);
+    await expect.poll(() => page.getByTestId("plan-reason").textContent(), { timeout: 15_000 }).toMatch(/in clearance|no clearance/);
     await page.getByText("Updating…").waitFor({ state: "detached" });
     const count = Number(await page.getByTestId("plan-count").textContent());
     expect(count).toBeGreaterThan(0);
@@ -167,16 +167,16 @@ describe("racking planner", () => {
 
     // 10 ft/min at 24 in (2 ft) pitch → 300 carriers/h (REFERENCES: conveyor worked example).
     await fill(page, { "Line speed (ft/min)": "10", "Carrier pitch (ft)": "2" });
-    await expect(result.locator("dd").nth(0).textContent()).resolves.toBe("300");
-    await expect(result.locator("dd").nth(1).textContent()).resolves.toBe((300 * count).toLocaleString("en-US"));
+    await expect.poll(() => result.locator("dd").nth(0).textContent(), { timeout: 15_000 }).toBe("300");
+    await expect.poll(() => result.locator("dd").nth(1).textContent(), { timeout: 15_000 }).toBe((300 * count).toLocaleString("en-US"));
 
     // Batch oven, hand working (common practice, no source): 10 + 15 + 10 + 10 = 45 min a cycle;
     // an 8 h shift holds floor(480 / 45) = 10 whole cycles of 4 racks.
     await page.getByLabel("Batch oven").check();
     await fill(page, { "Racks per load": "4", "Loading (min)": "10", "Heat-up (min)": "15", "Hold at cure (min)": "10", "Unloading (min)": "10", "Shift (h)": "8" });
-    await expect(result.locator("dd").nth(1).textContent()).resolves.toBe("45 min");
-    await expect(result.locator("dd").nth(2).textContent()).resolves.toBe("10 (whole cycles in 8 h)");
-    await expect(result.locator("dd").nth(3).textContent()).resolves.toBe((40 * count).toLocaleString("en-US"));
+    await expect.poll(() => result.locator("dd").nth(1).textContent(), { timeout: 15_000 }).toBe("45 min");
+    await expect.poll(() => result.locator("dd").nth(2).textContent(), { timeout: 15_000 }).toBe("10 (whole cycles in 8 h)");
+    await expect.poll(() => result.locator("dd").nth(3).textContent(), { timeout: 15_000 }).toBe((40 * count).toLocaleString("en-US"));
     await shot(page, "racking-us-units");
     await view(page).screenshot({ path: `${SHOTS}/racking-us-units-view.png` });
     await page.context().close();

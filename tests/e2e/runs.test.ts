@@ -71,11 +71,11 @@ describe("runs, the day board and the run sheet", () => {
     const summary = page.getByTestId("run-summary");
     await page.waitForFunction(() => document.querySelector("[data-testid=carriers]")?.textContent === "120", null, { timeout: 15_000 });
     await page.getByText("Updating…").waitFor({ state: "detached" });
-    await expect(summary.getByTestId("line-time").textContent()).resolves.toBe("1 h 39 min");
-    await expect(summary.getByTestId("parts-per-carrier").textContent()).resolves.toBe("1");
+    await expect.poll(() => summary.getByTestId("line-time").textContent(), { timeout: 15_000 }).toBe("1 h 39 min");
+    await expect.poll(() => summary.getByTestId("parts-per-carrier").textContent(), { timeout: 15_000 }).toBe("1");
     const material = await summary.getByTestId("material").textContent();
     expect(material).toMatch(/^\d+(\.\d+)? kg$/);
-    await expect(summary.getByTestId("cures").textContent()).resolves.toBe("Every coat cures");
+    await expect.poll(() => summary.getByTestId("cures").textContent(), { timeout: 15_000 }).toBe("Every coat cures");
     expect(await summary.getByTestId("coats-table").locator("tbody tr").count()).toBe(2);
     await shot(page, "runs-plan-form");
 
@@ -84,7 +84,7 @@ describe("runs, the day board and the run sheet", () => {
     const runId = Number(page.url().split("/").pop());
     await page.getByRole("heading", { level: 1, name: `Run ${runId}: 120 × BC-2210 Trailer fender, 13 in wheel` }).waitFor();
     // the saved plan matches what the form showed
-    await expect(page.getByTestId("material").textContent()).resolves.toBe(material);
+    await expect.poll(() => page.getByTestId("material").textContent(), { timeout: 15_000 }).toBe(material);
     const api = await (await page.request.get(`${baseUrl()}/api/runs/${runId}`)).json();
     expect(api.run.plan.carriers).toBe(120);
     expect(api.run.plan.coats.map((c: { code: string }) => c.code)).toEqual(["EC-200", "PP-430"]);
@@ -102,13 +102,13 @@ describe("runs, the day board and the run sheet", () => {
     const start = await rowIds(page);
     expect(start).toHaveLength(4);
     expect(start[3]).toBe(runId);
-    await expect(page.getByTestId("colour-change").count()).resolves.toBeGreaterThan(0);
+    await expect.poll(() => page.getByTestId("colour-change").count(), { timeout: 15_000 }).toBeGreaterThan(0);
 
     // keyboard: Alt+↑ on the focused row moves it up one place, and focus stays on it
     await page.locator(`li[data-run-id="${runId}"]`).focus();
     await page.keyboard.press("Alt+ArrowUp");
     await orderIs(page, lineId, [start[0], start[1], runId, start[2]]);
-    await expect(page.evaluate(() => document.activeElement?.getAttribute("data-run-id"))).resolves.toBe(String(runId));
+    await expect.poll(() => page.evaluate(() => document.activeElement?.getAttribute("data-run-id")), { timeout: 15_000 }).toBe(String(runId));
     // the move buttons
     await page.getByRole("button", { name: "Move BC-2210 up" }).nth(1).click();
     await orderIs(page, lineId, [start[0], runId, start[1], start[2]]);
@@ -132,7 +132,7 @@ describe("runs, the day board and the run sheet", () => {
     // tomorrow's seeded Line 1 runs need more than the 8 h shift: the late run is flagged
     await page.getByRole("button", { name: "Next day" }).click();
     await page.getByTestId("overflow").first().waitFor();
-    await expect(page.getByTestId("shift-1-fill").textContent()).resolves.toMatch(/ min past the shift/);
+    await expect.poll(() => page.getByTestId("shift-1-fill").textContent(), { timeout: 15_000 }).toMatch(/ min past the shift/);
     await shot(page, "day-board-overflow");
     expect(consoleErrors(page)).toEqual([]);
 
@@ -141,19 +141,19 @@ describe("runs, the day board and the run sheet", () => {
     const sheet = page.getByTestId("run-sheet");
     await sheet.waitFor();
     await sheet.getByRole("heading", { name: "Safety" }).waitFor();
-    await expect(sheet.getByTestId("sheet-film").locator("tbody tr").count()).resolves.toBe(2);
+    await expect.poll(() => sheet.getByTestId("sheet-film").locator("tbody tr").count(), { timeout: 15_000 }).toBe(2);
     const steps = await sheet.getByTestId("sheet-steps").locator("li").allTextContents();
     expect(steps[0]).toMatch(/^Mask/);
     expect(steps.some((s) => /E-coat tank: coat 1, EC-200/.test(s))).toBe(true);
     expect(steps.some((s) => /Powder cure oven: oven air 210 °C, dwell 20 min/.test(s))).toBe(true);
-    await expect(sheet.textContent()).resolves.toMatch(/NFPA 33.*NFPA 652.*NFPA 654/);
+    await expect.poll(() => sheet.textContent(), { timeout: 15_000 }).toMatch(/NFPA 33.*NFPA 652.*NFPA 654/);
     await shot(page, "run-sheet-screen");
 
     await page.emulateMedia({ media: "print" });
     // roughly an A4 page's printable width at 96 px/in (210 mm − 2 × 12 mm margins)
     await page.setViewportSize({ width: 703, height: 1000 });
-    await expect(page.locator("header.no-print").isVisible()).resolves.toBe(false);
-    await expect(page.getByRole("button", { name: "Print" }).isVisible()).resolves.toBe(false);
+    await expect.poll(() => page.locator("header.no-print").isVisible(), { timeout: 15_000 }).toBe(false);
+    await expect.poll(() => page.getByRole("button", { name: "Print" }).isVisible(), { timeout: 15_000 }).toBe(false);
     // black on white when printed
     const colours = await sheet.evaluate((el) => [getComputedStyle(el).color, getComputedStyle(el.querySelector("h2")!).color]);
     expect(colours).toEqual(["rgb(0, 0, 0)", "rgb(0, 0, 0)"]);
@@ -181,7 +181,7 @@ describe("runs, the day board and the run sheet", () => {
     await page.getByLabel("Line", { exact: true }).selectOption({ label: "Line 1 — E-coat and powder" });
     await page.getByLabel("Coat 1 coating").selectOption({ label: "PP-410 · powder · Bramble Green" });
     await page.getByTestId("line-error").waitFor({ timeout: 15_000 });
-    await expect(page.getByTestId("line-error").textContent()).resolves.toMatch(/does not fit on Line 1 — E-coat and powder's carrier: The part .* is larger than the 500 × 1500 × 600 mm window/);
+    await expect.poll(() => page.getByTestId("line-error").textContent(), { timeout: 15_000 }).toMatch(/does not fit on Line 1 — E-coat and powder's carrier: The part .* is larger than the 500 × 1500 × 600 mm window/);
     await shot(page, "runs-plan-does-not-fit");
     await page.context().close();
 
@@ -193,7 +193,7 @@ describe("runs, the day board and the run sheet", () => {
     await operator.getByTestId("runs-table").waitFor();
     expect(await operator.getByRole("button", { name: "Plan a run" }).count()).toBe(0);
     await operator.goto(`${baseUrl()}/board`);
-    await expect(operator.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("Not for your role");
+    await expect.poll(() => operator.getByRole("heading", { level: 1 }).textContent(), { timeout: 15_000 }).toBe("Not for your role");
     await operator.context().close();
   });
 });

@@ -25,13 +25,13 @@ const expected: Record<string, string[]> = {
 describe("sign-in and role navigation", () => {
   it.each(Object.entries(expected))("%s signs in and sees only its sections", async (role, links) => {
     const page = await signInPage(browser, `${role}@bramblecote.test`);
-    await expect(page.getByTestId("current-user").textContent()).resolves.toContain(role);
+    await expect.poll(() => page.getByTestId("current-user").textContent(), { timeout: 15_000 }).toContain(role);
     const nav = await page.getByRole("navigation", { name: "Sections" }).getByRole("link").allTextContents();
     expect([...nav].sort()).toEqual([...links].sort());
     await shot(page, `home-${role}`);
     if (role !== "admin") {
       await page.goto(`${baseUrl()}/admin/users`);
-      await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("Not for your role");
+      await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent(), { timeout: 15_000 }).toBe("Not for your role");
     }
     await page.context().close();
   });
@@ -79,7 +79,7 @@ describe("sign-in and role navigation", () => {
     await page.getByText("already been used").waitFor();
     await page.context().close();
     const hollis = await signInPage(browser, "hollis.quarry@bramblecote.test", "hollis-powder-9");
-    await expect(hollis.getByTestId("current-user").textContent()).resolves.toContain("engineer");
+    await expect.poll(() => hollis.getByTestId("current-user").textContent(), { timeout: 15_000 }).toContain("engineer");
     await hollis.context().close();
   });
 });

@@ -53,14 +53,14 @@ describe("throughput comparison", () => {
 
     const limits = page.getByTestId("limit");
     await limits.nth(1).waitFor();
-    await expect(limits.nth(0).textContent()).resolves.toMatch(new RegExp(`^${LINE1}: Cure dwell in Powder cure oven limits speed to 12\\.1 ft/min`));
-    await expect(limits.nth(1).textContent()).resolves.toMatch(new RegExp(`^${LINE2}: Cure dwell in Cure oven limits speed to 9\\.98 ft/min`));
+    await expect.poll(() => limits.nth(0).textContent(), { timeout: 15_000 }).toMatch(new RegExp(`^${LINE1}: Cure dwell in Powder cure oven limits speed to 12\\.1 ft/min`));
+    await expect.poll(() => limits.nth(1).textContent(), { timeout: 15_000 }).toMatch(new RegExp(`^${LINE2}: Cure dwell in Cure oven limits speed to 9\\.98 ft/min`));
 
     const table = page.getByTestId("comparison-table");
     const row = (name: string) => table.locator("tbody tr", { has: page.getByRole("rowheader", { name, exact: true }) });
-    await expect(row("Parts per hour").locator("td").allTextContents()).resolves.toEqual(["2,210", "2,434best"]);
-    await expect(row("Cost per part").locator('td[data-best="true"]').count()).resolves.toBe(1);
-    await expect(row("Cost per part").locator("td").nth(1).getAttribute("data-best")).resolves.toBe("true");
+    await expect.poll(() => row("Parts per hour").locator("td").allTextContents(), { timeout: 15_000 }).toEqual(["2,210", "2,434best"]);
+    await expect.poll(() => row("Cost per part").locator('td[data-best="true"]').count(), { timeout: 15_000 }).toBe(1);
+    await expect.poll(() => row("Cost per part").locator("td").nth(1).getAttribute("data-best"), { timeout: 15_000 }).toBe("true");
 
     // The chart arrives after the table (Recharts is loaded on demand): an svg with one bar per line.
     const bars = page.locator('[data-testid="chart-parts-per-hour"] svg .recharts-bar-rectangle');
@@ -79,12 +79,12 @@ describe("throughput comparison", () => {
     await page.getByLabel("Line speed (ft/min)").fill("11");
     await page.getByRole("button", { name: "Save scenario" }).click();
     await page.getByText("Saved Line 2 at 11 ft/min; it is ticked for the comparison above.").waitFor();
-    await expect(page.getByRole("list", { name: "Saved scenarios" }).getByLabel("Line 2 at 11 ft/min").isChecked()).resolves.toBe(true);
+    await expect.poll(() => page.getByRole("list", { name: "Saved scenarios" }).getByLabel("Line 2 at 11 ft/min").isChecked(), { timeout: 15_000 }).toBe(true);
     await page.getByRole("button", { name: "Compare" }).click();
     await limits.nth(2).waitFor();
     // 3.353 m/min is faster than the 3.042 m/min the oven cures at: named, and the bar is red
-    await expect(limits.nth(2).textContent()).resolves.toMatch(/^Line 2 at 11 ft\/min: Cure dwell in Cure oven limits speed to 9\.98 ft\/min: at the scenario's 11 ft\/min .* does not cure\./);
-    await expect(limits.nth(2).getAttribute("data-kind")).resolves.toBe("cure-dwell");
+    await expect.poll(() => limits.nth(2).textContent(), { timeout: 15_000 }).toMatch(/^Line 2 at 11 ft\/min: Cure dwell in Cure oven limits speed to 9\.98 ft\/min: at the scenario's 11 ft\/min .* does not cure\./);
+    await expect.poll(() => limits.nth(2).getAttribute("data-kind"), { timeout: 15_000 }).toBe("cure-dwell");
     await page.waitForFunction(() => document.querySelectorAll('[data-testid="chart-parts-per-hour"] svg .recharts-bar-rectangle path').length >= 3, null, { timeout: 30_000 });
 
     // Duplicate, then delete the copy after confirming.
@@ -111,10 +111,10 @@ describe("throughput comparison", () => {
     const limits = page.getByTestId("limit");
     await limits.nth(1).waitFor();
     // 66 m oven: fastest curing 66 / 17.75 = 3.72 m/min, above Line 2's 3.6 m/min top speed
-    await expect(limits.nth(1).textContent()).resolves.toContain(
+    await expect.poll(() => limits.nth(1).textContent(), { timeout: 15_000 }).toContain(
       "Line 2 with longer oven: The conveyor's top speed limits speed to 3.6 m/min; Cure oven would cure at up to 3.72 m/min.",
     );
-    await expect(limits.nth(1).getAttribute("data-kind")).resolves.toBe("line-speed");
+    await expect.poll(() => limits.nth(1).getAttribute("data-kind"), { timeout: 15_000 }).toBe("line-speed");
     expect(await page.getByRole("button", { name: "Save scenario" }).count()).toBe(0);
     expect(await page.getByRole("button", { name: /^Delete / }).count()).toBe(0);
     await page.context().close();
