@@ -72,6 +72,14 @@ export function PlanFacts({ plan, unitSystem: sys, currency }: Props) {
   );
 }
 
+/** "utilisation: measured 65 % (3 runs) · nominal 55 %" when the plan uses the measured figure. */
+export function utilisationText(c: RunPlan["coats"][number]): string {
+  const nominal = c.nominalUtilization !== null ? `nominal ${percent(c.nominalUtilization)}` : "";
+  if (c.utilizationUsed !== "measured" || c.measuredUtilization === null) return nominal && `utilisation: ${nominal}`;
+  const runs = c.measuredRuns !== null ? ` (${plural(c.measuredRuns, "run")})` : "";
+  return `utilisation: measured ${percent(c.measuredUtilization)}${runs}${nominal && ` · ${nominal}`}`;
+}
+
 export function CoatsTable({ plan, unitSystem: sys, currency }: Props) {
   return (
     <div className="overflow-x-auto">
@@ -110,6 +118,7 @@ export function CoatsTable({ plan, unitSystem: sys, currency }: Props) {
               <td className="py-1.5 pr-3 num" data-testid={`coat-material-${c.position}`}>
                 {q("massKg", c.materialKg, sys)}
                 <span className="block text-xs text-ink-faint">{money(c.materialCost, currency)}</span>
+                {c.kind === "powder" && <span className="block text-xs text-ink-faint" data-testid={`coat-utilisation-${c.position}`}>{utilisationText(c)}</span>}
               </td>
               <td className="py-1.5 pr-3 num">{containerText(c.containers, c.containerKind, c.containerKg, sys)}</td>
               <td className="py-1.5 pr-3">

@@ -96,6 +96,13 @@ export interface PlanCoatInput {
   firstPassEfficiency?: number | null;
   /** powder only, [0, 1]; 0 when left out */
   reclaimEfficiency?: number | null;
+  /**
+   * powder only, (0, 1]: utilisation measured from actual use on this line × coating; when
+   * given it replaces the first-pass/reclaim figure for the powder sprayed
+   */
+  measuredUtilization?: number | null;
+  /** how many recorded runs the measured figure rests on (shown beside it) */
+  measuredRuns?: number | null;
 }
 
 export interface PlanRacking {
@@ -158,7 +165,15 @@ export interface CoatPlan {
   areaPerPartM2: number;
   /** all parts of the run */
   areaM2: number;
+  /** the utilisation the material figures use (the measured one when given) */
   materialUtilization: number | null;
+  /** powder: steady-state utilisation from first-pass and reclaim efficiency */
+  nominalUtilization: number | null;
+  /** powder: the measured utilisation given with the coat, else null */
+  measuredUtilization: number | null;
+  measuredRuns: number | null;
+  /** which figure the material uses; e-coat is always "nominal" (theoretical use) */
+  utilizationUsed: "measured" | "nominal";
   materialKgPerPart: number;
   materialKg: number;
   materialCost: number;
@@ -388,6 +403,10 @@ function coatCure(check: CureCheck, positionOffset: number): CoatCure {
 
 interface CoatMaterial {
   materialUtilization: number | null;
+  nominalUtilization: number | null;
+  measuredUtilization: number | null;
+  measuredRuns: number | null;
+  utilizationUsed: "measured" | "nominal";
   materialKgPerPart: number;
   materialKg: number;
   paintL: number | null;
@@ -415,7 +434,24 @@ function coatMaterial(c: PlanCoatInput, i: number, areaPerPartM2: number, quanti
         parts: quantity,
       }),
     );
-    return { materialUtilization: p.materialUtilization, materialKgPerPart: p.powderKgPerPart, materialKg: p.powderKg, paintL: null, chargeC: null };
+    const nominal = { nominalUtilization: p.materialUtilization, paintL: null, chargeC: null };
+    const measured = c.measuredUtilization ?? null;
+    if (measured === null) {
+      return { ...nominal, materialUtilization: p.materialUtilization, measuredUtilization: null, measuredRuns: null, utilizationUsed: "nominal", materialKgPerPart: p.powderKgPerPart, materialKg: p.powderKg };
+    }
+    requireInRange(`coats.${i}.measuredUtilization`, measured, { gt: 0, lte: 1 });
+    // Same coverage (Products Finishing, metric form), at the utilisation measured from actual use:
+    // kg sprayed = area / (coverage m²/kg × utilisation).
+    const kgPerPart = areaPerPartM2 / (p.theoreticalCoverageM2PerKg * measured);
+    return {
+      ...nominal,
+      materialUtilization: measured,
+      measuredUtilization: measured,
+      measuredRuns: c.measuredRuns ?? null,
+      utilizationUsed: "measured",
+      materialKgPerPart: kgPerPart,
+      materialKg: kgPerPart * quantity,
+    };
   }
   if (coating.filmDensityGPerCm3 === null || coating.weightSolidsFraction === null) {
     throw new DomainError(`coats.${i}.coatingId`, `${coating.code} lacks its film density or weight solids in the coatings library; add them there first.`);
@@ -437,6 +473,10 @@ function coatMaterial(c: PlanCoatInput, i: number, areaPerPartM2: number, quanti
       : mapped(field, () => ecoatPaintUse({ areaM2: areaPerPartM2 * quantity, filmUm: c.filmUm, volumeSolidsFraction: coating.volumeSolidsFraction! }).paintL);
   return {
     materialUtilization: null,
+    nominalUtilization: null,
+    measuredUtilization: null,
+    measuredRuns: null,
+    utilizationUsed: "nominal",
     materialKgPerPart: e.depositedSolidsKgPerPart / ws,
     materialKg: e.depositedSolidsKg / ws,
     paintL,

@@ -32,6 +32,7 @@ import { canTransition, isEditable, occupiesLine, RUN_STATUS_LABELS, RUN_TRANSIT
 import type { RackOrientation } from "@/lib/rack/types";
 import type { BoardOrder, RunInput } from "@/lib/validation/runs";
 import { dateToEpoch, epochToDate, nowSeconds, toCoatingView, type CoatingView } from "./coatings";
+import { utilisationEstimate } from "./feedback";
 import { ApiError } from "./http";
 import { toLineView, type LineView } from "./lines";
 import type { SessionUser } from "./session";
@@ -193,8 +194,30 @@ interface StoredRun {
   coats: { coatingId: number; filmUm: number; firstPassEfficiency: number | null; reclaimEfficiency: number | null }[];
 }
 
+/** Measured powder utilisation per line × coating, keyed `lineId:coatingId` (only those with a measured figure). */
+type MeasuredMap = Map<string, { utilization: number; runs: number }>;
+const measuredKey = (lineId: number, coatingId: number) => `${lineId}:${coatingId}`;
+
+/**
+ * The measured utilisation of each powder line × coating pair from the actual-use records:
+ * non-null from MIN_RUNS_FOR_MEASURED recorded runs on (lib/server/feedback.ts). A mean outside
+ * (0, 1] (bad weighings confirmed anyway) is left out, so the plan falls back to the nominal figure.
+ */
+async function measuredUtilisations(db: Db, pairs: { lineId: number; coatingId: number }[], coatings: Map<number, PlanCoating>): Promise<MeasuredMap> {
+  const out: MeasuredMap = new Map();
+  const keys = new Set<string>();
+  for (const { lineId, coatingId } of pairs) {
+    const key = measuredKey(lineId, coatingId);
+    if (keys.has(key) || coatings.get(coatingId)?.kind !== "powder") continue;
+    keys.add(key);
+    const est = await utilisationEstimate(db, lineId, coatingId);
+    if (est.measured !== null && est.measured > 0 && est.measured <= 1) out.set(key, { utilization: est.measured, runs: est.runs });
+  }
+  return out;
+}
+
 /** The pure plan's input from a run and what it refers to; null pieces are reported as problems. */
-function planInput(run: StoredRun, part: RunPartView, line: LineView, coatings: Map<number, PlanCoating>): PlanRunInput {
+function planInput(run: StoredRun, part: RunPartView, line: LineView, coatings: Map<number, PlanCoating>, measured: MeasuredMap = new Map()): PlanRunInput {
   return {
     part: planPartOf(part),
     quantity: run.quantity,
@@ -209,16 +232,29 @@ function planInput(run: StoredRun, part: RunPartView, line: LineView, coatings: 
     coats: run.coats.map((c, i) => {
       const coating = coatings.get(c.coatingId);
       if (!coating) throw new DomainError(`coats.${i}.coatingId`, "No such coating.");
-      return { coating, filmUm: c.filmUm, firstPassEfficiency: c.firstPassEfficiency, reclaimEfficiency: c.reclaimEfficiency };
+      const m = coating.kind === "powder" ? measured.get(measuredKey(line.id, c.coatingId)) : undefined;
+      return {
+        coating,
+        filmUm: c.filmUm,
+        firstPassEfficiency: c.firstPassEfficiency,
+        reclaimEfficiency: c.reclaimEfficiency,
+        ...(m ? { measuredUtilization: m.utilization, measuredRuns: m.runs } : {}),
+      };
     }),
   };
 }
 
-function tryPlan(run: StoredRun, part: RunPartView | null, line: LineView | undefined, coatings: Map<number, PlanCoating>): { plan: RunPlan | null; planError: PlanProblem | null } {
+function tryPlan(
+  run: StoredRun,
+  part: RunPartView | null,
+  line: LineView | undefined,
+  coatings: Map<number, PlanCoating>,
+  measured: MeasuredMap,
+): { plan: RunPlan | null; planError: PlanProblem | null } {
   if (!part) return { plan: null, planError: { field: "partId", message: "The run's part is missing from the catalogue." } };
   if (!line) return { plan: null, planError: { field: "lineId", message: "The run's line is missing." } };
   try {
-    return { plan: planRun(planInput(run, part, line, coatings)), planError: null };
+    return { plan: planRun(planInput(run, part, line, coatings, measured)), planError: null };
   } catch (e) {
     if (e instanceof DomainError) return { plan: null, planError: { field: e.field, message: e.message } };
     throw e;
@@ -299,13 +335,19 @@ interface Planned {
 
 async function planRows(db: Db, rows: RunListRow[]): Promise<{ planned: Planned[]; ctx: Context }> {
   const [coats, ctx] = await Promise.all([coatsOf(db, rows.map((r) => r.id)), loadContext(db, rows.map((r) => r.part_id))]);
+  const lineOf = new Map(rows.map((r) => [r.id, r.line_id]));
+  const measured = await measuredUtilisations(
+    db,
+    coats.map((c) => ({ lineId: lineOf.get(c.run_id)!, coatingId: c.coating_id })),
+    ctx.coatings,
+  );
   const planned = rows.map((row) => {
     const base = baseView(
       row,
       coats.filter((c) => c.run_id === row.id),
       ctx,
     );
-    const { plan, planError } = tryPlan(base.stored, base.part, ctx.lines.get(row.line_id), ctx.coatings);
+    const { plan, planError } = tryPlan(base.stored, base.part, ctx.lines.get(row.line_id), ctx.coatings, measured);
     return { row, base, plan, planError };
   });
   return { planned, ctx };
@@ -416,7 +458,8 @@ function rowValues(input: RunInput, plan: RunPlan) {
 /** Plans the input (a DomainError becomes a 400 naming the field) before anything is written. */
 async function planChecked(db: Db, input: RunInput): Promise<RunPlan> {
   const { part, line, coatings } = await checkReferences(db, input);
-  return planRun(planInput(storedFromInput(input), part, line, coatings));
+  const measured = await measuredUtilisations(db, input.coats.map((c) => ({ lineId: line.id, coatingId: c.coatingId })), coatings);
+  return planRun(planInput(storedFromInput(input), part, line, coatings, measured));
 }
 
 const hours = (min: number) => formatSignificant(min / 60, 3);
