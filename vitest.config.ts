@@ -9,13 +9,14 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node" },
+        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node", setupFiles: ["tests/fast-check-seed.ts"] },
       },
       {
         extends: true,
         test: {
           name: "api",
           include: ["tests/api/**/*.test.ts"],
+          setupFiles: ["tests/fast-check-seed.ts"],
           environment: "node",
           pool: "forks",
           testTimeout: 30_000,

