@@ -42,4 +42,17 @@ describe("measureStlFile", () => {
     await expect(measureStlFile(empty, "mm")).rejects.toBeInstanceOf(GeometryError);
     await expect(measureStlFile(empty, "mm")).rejects.toMatchObject({ code: "empty_file" });
   });
+
+  it("stops at a bad coordinate in the first read while the next read is still under way", async () => {
+    // A NaN in the first buffer's bytes, a second buffer's worth still to come. // common practice, no source
+    const mesh = torusMesh(100, 20, 160, 120);
+    const bytes = toBinaryStl(mesh);
+    expect(bytes.length).toBeGreaterThan(STL_READ_BUFFER_BYTES);
+    new DataView(bytes.buffer, bytes.byteOffset).setFloat32(84 + 50 * 10 + 12, Number.NaN, true);
+    const path = join(dir, "nan.stl");
+    await writeFile(path, bytes);
+    await expect(measureStlFile(path, "mm")).rejects.toBeInstanceOf(GeometryError);
+    // the handle was closed cleanly: the same file can be measured again with the same answer
+    await expect(measureStlFile(path, "mm")).rejects.toBeInstanceOf(GeometryError);
+  });
 });
