@@ -22,3 +22,28 @@ export async function partNumbersUsingMesh(db: Db, meshId: string): Promise<stri
   const rows = await db.selectFrom("parts").select("number").where("mesh_id", "=", meshId).orderBy("number").execute();
   return rows.map((r) => r.number);
 }
+
+/** Stored file names of every mesh row. */
+export async function storedMeshNames(db: Db): Promise<Set<string>> {
+  const rows = await db.selectFrom("meshes").select("stored_name").execute();
+  return new Set(rows.map((r) => r.stored_name));
+}
+
+/**
+ * Deletes mesh rows that no part (archived parts included) has used and that were created
+ * before `createdBefore`; returns their stored file names so the caller can delete the files.
+ */
+export async function deleteUnattachedMeshes(db: Db, createdBefore: number): Promise<string[]> {
+  return db.transaction().execute(async (trx) => {
+    const rows = await trx
+      .selectFrom("meshes")
+      .select(["id", "stored_name"])
+      .where("created_at", "<", createdBefore)
+      .where(({ not, exists, selectFrom }) =>
+        not(exists(selectFrom("parts").select("parts.id").whereRef("parts.mesh_id", "=", "meshes.id"))),
+      )
+      .execute();
+    if (rows.length > 0) await trx.deleteFrom("meshes").where("id", "in", rows.map((r) => r.id)).execute();
+    return rows.map((r) => r.stored_name);
+  });
+}

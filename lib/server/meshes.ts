@@ -5,14 +5,22 @@
  */
 import { randomUUID } from "node:crypto";
 import { createReadStream, createWriteStream } from "node:fs";
-import { mkdir, rename, rm, stat } from "node:fs/promises";
+import { mkdir, readdir, rename, rm, stat } from "node:fs/promises";
 import path from "node:path";
 import { Readable, Transform } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import type { ReadableStream as NodeWebReadableStream } from "node:stream/web";
 import busboy from "busboy";
 import { databasePath, getDb } from "@/db/index";
-import { findMeshRow, insertMesh, partNumbersUsingMesh, updateMesh, type MeshRow } from "@/db/queries/meshes";
+import {
+  deleteUnattachedMeshes,
+  findMeshRow,
+  insertMesh,
+  partNumbersUsingMesh,
+  storedMeshNames,
+  updateMesh,
+  type MeshRow,
+} from "@/db/queries/meshes";
 import { GeometryError } from "@/lib/geometry/errors";
 import { unitFactors, type StlUnit } from "@/lib/geometry/length-units";
 import { createStlMeasurer, type StlMeasurement, type StlMeasurer } from "@/lib/geometry/stl-measure";
@@ -331,4 +339,55 @@ export async function changeMeshUnit(id: string, unit: StlUnit): Promise<MeshVie
     bbox_z_mm: m.bboxMm.z,
   });
   return getMesh(row.id);
+}
+
+const HOUR_S = 3600;
+const DEFAULT_UNATTACHED_DAYS = 7;
+
+/** Days an uploaded mesh may stay unused by any part before the sweep deletes it (MESH_UNATTACHED_DAYS). */
+export function meshUnattachedDays(): number {
+  const raw = Number(process.env.MESH_UNATTACHED_DAYS);
+  return Number.isFinite(raw) && raw > 0 ? raw : DEFAULT_UNATTACHED_DAYS;
+}
+
+export interface MeshSweepReport {
+  /** ".part" files of uploads that never finished (a crash or a killed server) */
+  partialFiles: number;
+  /** files no mesh row names (a crash between the rename and the insert) */
+  strayFiles: number;
+  /** mesh rows (and their files) no part has used since they were uploaded */
+  unattachedMeshes: number;
+}
+
+/**
+ * Tidies the mesh folder: partial uploads, files without a row, and meshes uploaded but never
+ * attached to a part. Files younger than an hour are left alone, so an upload in progress (or
+ * one between its rename and its insert) is never touched. Runs at start-up.
+ */
+export async function sweepMeshFolder(nowS = Math.floor(Date.now() / 1000)): Promise<MeshSweepReport> {
+  const report: MeshSweepReport = { partialFiles: 0, strayFiles: 0, unattachedMeshes: 0 };
+  const db = await getDb();
+  const dir = meshDirectory();
+  for (const name of await deleteUnattachedMeshes(db, nowS - meshUnattachedDays() * 24 * HOUR_S)) {
+    await rm(storedPath(name), { force: true });
+    report.unattachedMeshes++;
+  }
+  let names: string[];
+  try {
+    names = await readdir(dir);
+  } catch {
+    return report; // no folder yet: nothing was ever uploaded
+  }
+  const known = await storedMeshNames(db);
+  for (const name of names) {
+    const partial = name.endsWith(".stl.part");
+    if (!partial && (!name.endsWith(".stl") || known.has(name))) continue;
+    const file = path.join(dir, name);
+    const info = await stat(file).catch(() => null);
+    if (!info?.isFile() || info.mtimeMs / 1000 > nowS - HOUR_S) continue;
+    await rm(file, { force: true });
+    if (partial) report.partialFiles++;
+    else report.strayFiles++;
+  }
+  return report;
 }

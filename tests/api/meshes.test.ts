@@ -2,7 +2,7 @@ import fs from "node:fs";
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import { binaryStl } from "@/db/seed/parts";
-import { meshDirectory } from "@/lib/server/meshes";
+import { meshDirectory, sweepMeshFolder } from "@/lib/server/meshes";
 import { BASE, params, request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
 import { POST as meshPost } from "@/app/api/meshes/route";
 import { GET as meshGet, PATCH as meshPatch } from "@/app/api/meshes/[id]/route";
@@ -316,5 +316,57 @@ describe("GET /api/meshes/{id} and /file, PATCH unit", () => {
     const again = await meshPatch(request(`/api/meshes/${id}`, { method: "PATCH", body: { unit: "mm" }, cookie: engineer }), params({ id }));
     expect(again.status).toBe(409);
     expect(((await again.json()) as { error: { message: string } }).error.message).toMatch(/T-1/);
+  });
+});
+
+describe("the start-up sweep of the mesh folder", () => {
+  // Retention rules are the product's own choice (common practice, no source): unfinished
+  // uploads and files without a record go after an hour; meshes no part uses after 7 days.
+  const DAY_S = 86_400;
+  const ageFile = (file: string, seconds: number) => {
+    const t = Date.now() / 1000 - seconds;
+    fs.utimesSync(file, t, t);
+  };
+
+  it("deletes old partial uploads, stray files and unused meshes, keeps what a part uses and anything recent", async () => {
+    const used = await upload(binaryStl(boxTriangles(10, 10, 10)), { name: "used.stl" });
+    const unused = await upload(binaryStl(boxTriangles(20, 10, 10)), { name: "unused.stl" });
+    const recent = await upload(binaryStl(boxTriangles(30, 10, 10)), { name: "recent.stl" });
+    expect([used.status, unused.status, recent.status]).toEqual([201, 201, 201]);
+    const part = await partPost(
+      request("/api/parts", {
+        method: "POST",
+        cookie: engineer,
+        body: { number: "S-1", name: "Swept block", material: "steel", thicknessMm: 10, areaOrigin: "mesh", meshId: used.body.id },
+      }),
+    );
+    expect(part.status).toBe(201);
+    const db = await getDb();
+    const eightDaysAgo = Math.floor(Date.now() / 1000) - 8 * DAY_S;
+    await db.updateTable("meshes").set({ created_at: eightDaysAgo }).where("id", "in", [used.body.id as string, unused.body.id as string]).execute();
+    const dir = meshDirectory();
+    const oldPartial = `${dir}/11111111-1111-4111-8111-111111111111.stl.part`;
+    const newPartial = `${dir}/22222222-2222-4222-8222-222222222222.stl.part`;
+    const stray = `${dir}/33333333-3333-4333-8333-333333333333.stl`;
+    const other = `${dir}/notes.txt`;
+    for (const f of [oldPartial, newPartial, stray, other]) fs.writeFileSync(f, "x");
+    for (const f of [oldPartial, stray, other]) ageFile(f, 2 * 3600);
+
+    const report = await sweepMeshFolder();
+    expect(report).toEqual({ partialFiles: 1, strayFiles: 1, unattachedMeshes: 1 });
+    // (earlier tests' young files without rows stay too: younger than an hour)
+    const files = new Set(fs.readdirSync(dir));
+    for (const kept of [`${used.body.id}.stl`, `${recent.body.id}.stl`, "22222222-2222-4222-8222-222222222222.stl.part", "notes.txt"]) {
+      expect(files.has(kept), kept).toBe(true);
+    }
+    for (const gone of [`${unused.body.id}.stl`, "11111111-1111-4111-8111-111111111111.stl.part", "33333333-3333-4333-8333-333333333333.stl"]) {
+      expect(files.has(gone), gone).toBe(false);
+    }
+    const ids = (await db.selectFrom("meshes").select("id").execute()).map((r) => r.id);
+    expect(ids).toContain(used.body.id);
+    expect(ids).toContain(recent.body.id);
+    expect(ids).not.toContain(unused.body.id);
+    // a second sweep finds nothing more
+    expect(await sweepMeshFolder()).toEqual({ partialFiles: 0, strayFiles: 0, unattachedMeshes: 0 });
   });
 });
