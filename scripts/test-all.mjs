@@ -1,7 +1,8 @@
 #!/usr/bin/env node
 /*
  * npm test: unit + API tests, a production build (checked to create no database file),
- * then the browser tests against the built app in Debian's Chromium.
+ * then the browser tests against the built app in Debian's Chromium, then short runs of the
+ * durability (5 SIGKILLs) and load (5 s per row) scripts.
  * Prints one closing line "N passed, N failed" over all of them.
  */
 import { spawnSync } from "node:child_process";
@@ -71,4 +72,16 @@ if (fs.existsSync(buildDb)) {
 }
 
 ok = vitest("browser", ["e2e"]) && ok;
+
+// Short modes of the durability and load scripts (their full runs: npm run durability / npm run load).
+for (const [label, script, args] of [
+  ["durability (short)", "scripts/durability.mjs", ["--kills", "5"]],
+  ["load (short)", "scripts/load.mjs", ["--seconds", "5"]],
+]) {
+  if (run(label, "node", [script, ...args])) passed += 1;
+  else {
+    failed += 1;
+    ok = false;
+  }
+}
 finish(ok && failed === 0 ? 0 : 1);
