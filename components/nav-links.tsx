@@ -2,10 +2,10 @@
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 
-export function NavLinks({ items }: { items: { href: string; label: string }[] }) {
+export function NavLinks({ items, label = "Sections" }: { items: { href: string; label: string }[]; label?: string }) {
   const path = usePathname();
   return (
-    <nav aria-label="Sections">
+    <nav aria-label={label}>
       <ul className="flex flex-wrap gap-1 text-sm">
         {items.map((i) => {
           const active = i.href === "/" ? path === "/" : path.startsWith(i.href);

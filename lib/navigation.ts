@@ -5,6 +5,8 @@ export interface NavItem {
   label: string;
   /** Roles that see the item; admin sees everything. */
   roles: readonly Role[] | "all";
+  /** "account": shown beside the user's name (settings and administration), not among the work sections */
+  area?: "account";
 }
 
 // Only sections that exist are listed; each capability adds its entry when its screen lands.
@@ -23,9 +25,9 @@ export const navItems: NavItem[] = [
   { href: "/purchase-requests", label: "Purchasing", roles: ["purchaser"] },
   { href: "/feedback", label: "Utilisation", roles: ["supervisor", "manager"] },
   { href: "/calculators", label: "Calculators", roles: "all" },
-  { href: "/admin/users", label: "Users", roles: ["admin"] },
-  { href: "/admin/outbox", label: "Mail outbox", roles: ["admin"] },
-  { href: "/settings", label: "Settings", roles: "all" },
+  { href: "/admin/users", label: "Users", roles: ["admin"], area: "account" },
+  { href: "/admin/outbox", label: "Mail outbox", roles: ["admin"], area: "account" },
+  { href: "/settings", label: "Settings", roles: "all", area: "account" },
 ];
 
 export function navFor(role: Role): NavItem[] {

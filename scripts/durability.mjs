@@ -103,6 +103,14 @@ async function writeLoop(cookie, template, acked, stop) {
   }
 }
 
+// A bound on the whole script, which also keeps the event loop alive: a wait that can never end
+// fails loudly here instead of Node quietly exiting with code 13.
+const limitS = kills * 40 + 180;
+const guard = setTimeout(() => {
+  console.error(`durability: gave up after ${limitS} s`);
+  process.exit(1);
+}, limitS * 1000);
+
 const acked = { runs: [], checks: [] };
 const failures = [];
 let template = null;
@@ -118,14 +126,14 @@ for (let k = 0; k < kills; k++) {
   child.kill("SIGKILL");
   stop.done = true;
   await Promise.all(loops);
-  await new Promise((r) => (child.exitCode !== null ? r() : child.once("exit", r)));
+  await new Promise((r) => (child.exitCode !== null || child.signalCode !== null ? r() : child.once("exit", r)));
 }
 
 // Restart once more so the app opens (and migrates) the database after the last kill.
 const last = start();
 await waitUp();
 last.kill("SIGTERM");
-await new Promise((r) => (last.exitCode !== null ? r() : last.once("exit", r)));
+await new Promise((r) => (last.exitCode !== null || last.signalCode !== null ? r() : last.once("exit", r)));
 
 const db = new Database(dbFile, { readonly: true });
 const integrity = db.pragma("integrity_check", { simple: true });
@@ -143,4 +151,5 @@ console.log(
 );
 for (const f of failures.slice(0, 5)) console.log(`  ${f}`);
 fs.rmSync(dir, { recursive: true, force: true });
+clearTimeout(guard);
 if (integrity !== "ok" || missingRuns.length + missingChecks.length > 0 || failures.length > 0 || acked.runs.length === 0) process.exit(1);

@@ -12,24 +12,30 @@ export default async function AppLayout({ children }: { children: React.ReactNod
   await connection();
   const user = await requirePageUser();
   const plant = await plantSettings();
-  const items = navFor(user.role).map(({ href, label }) => ({ href, label }));
+  const visible = navFor(user.role);
+  const pick = (area: "account" | undefined) => visible.filter((i) => i.area === area).map(({ href, label }) => ({ href, label }));
+  const sections = pick(undefined);
+  const account = pick("account");
   return (
     <SwrProvider>
       <div className="min-h-screen">
         <header className="no-print border-b border-plate-line bg-ink text-plate">
-          <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
+          <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 pt-2">
             <Link href="/" className="flex items-baseline gap-2 font-semibold tracking-tight">
               <span className="text-lg">Coatwright</span>
               <span className="text-xs font-normal text-plate/70">{plant.plantName}</span>
             </Link>
-            <NavLinks items={items} />
-            <div className="ml-auto flex items-center gap-3 text-sm">
+            <div className="ml-auto flex flex-wrap items-center gap-3 text-sm">
+              <NavLinks items={account} label="Account and administration" />
               <UnitSwitch initial={user.unitSystem} />
               <span data-testid="current-user">
                 {user.name} · <span className="capitalize">{user.role}</span>
               </span>
               <SignOutButton />
             </div>
+          </div>
+          <div className="mx-auto max-w-7xl px-4 pb-2 pt-1">
+            <NavLinks items={sections} />
           </div>
         </header>
         <main id="main" className="mx-auto max-w-7xl px-4 py-6">{children}</main>

@@ -29,6 +29,13 @@ export interface CureCheckInput {
   /** conveyor lines only */
   lineSpeedMPerMin?: number;
   startTempC?: number;
+  /** how speeds and temperatures read in the sentences (the server passes the user's units) */
+  words?: CureWords;
+}
+
+export interface CureWords {
+  speed: (mPerMin: number) => string;
+  temperature: (c: number) => string;
 }
 
 /** One schedule point as seen by this oven: null heat-up when the air never brings the metal there. */
@@ -79,6 +86,10 @@ export interface BatchCureCheck extends CureCheckCommon {
 export type CureCheck = ConveyorCureCheck | BatchCureCheck;
 
 const fmt = (v: number) => formatSignificant(v, 3);
+export const METRIC_CURE_WORDS: CureWords = {
+  speed: (v) => `${fmt(v)} m/min`,
+  temperature: (v) => `${fmt(v)} °C`,
+};
 
 /** Position of the cure oven that follows the stage applying this coating kind. */
 export function cureOvenPosition(stages: readonly StageInput[], coatingKind: CoatingKind): number {
@@ -122,6 +133,7 @@ function evaluatePoints(
 export function cureCheck(input: CureCheckInput): CureCheck {
   const { line, coating, thicknessMm } = input;
   const startTempC = input.startTempC ?? 20;
+  const w = input.words ?? METRIC_CURE_WORDS;
   requirePositive("thicknessMm", thicknessMm);
   requireInRange("startTempC", startTempC, { gte: -50, lte: 1000 });
   if (!coating.cureSchedule.length) {
@@ -150,8 +162,8 @@ export function cureCheck(input: CureCheckInput): CureCheck {
       points,
       pass: best !== null,
       reason: best
-        ? `Cures in a ${fmt(cycleMin!)} min cycle: load ${fmt(line.loadMin)}, heat-up ${fmt(best.heatUpMin)} to ${fmt(best.metalTempC)} °C, hold ${fmt(best.holdMin)}, unload ${fmt(line.unloadMin)} min.`
-        : noPointReason(line.airTempC, coating.cureSchedule),
+        ? `Cures in a ${fmt(cycleMin!)} min cycle: load ${fmt(line.loadMin)}, heat-up ${fmt(best.heatUpMin)} to ${w.temperature(best.metalTempC)}, hold ${fmt(best.holdMin)}, unload ${fmt(line.unloadMin)} min.`
+        : noPointReason(line.airTempC, coating.cureSchedule, w),
       warnings: detail?.warnings ?? [],
       loadMin: line.loadMin,
       unloadMin: line.unloadMin,
@@ -186,16 +198,16 @@ export function cureCheck(input: CureCheckInput): CureCheck {
   const pass = requiredMin !== null && isAtLeast(dwellMin, requiredMin);
 
   let reason: string;
-  if (!best) reason = noPointReason(oven.airTempC, coating.cureSchedule);
+  if (!best) reason = noPointReason(oven.airTempC, coating.cureSchedule, w);
   else if (pass) {
-    reason = `Cures with ${fmt(marginMin!)} min to spare: ${fmt(dwellMin)} min in ${stage.name} at ${fmt(lineSpeedMPerMin)} m/min against ${fmt(requiredMin!)} min needed (heat-up ${fmt(best.heatUpMin)} to ${fmt(best.metalTempC)} °C, hold ${fmt(best.holdMin)}).`;
+    reason = `Cures with ${fmt(marginMin!)} min to spare: ${fmt(dwellMin)} min in ${stage.name} at ${w.speed(lineSpeedMPerMin)} against ${fmt(requiredMin!)} min needed (heat-up ${fmt(best.heatUpMin)} to ${w.temperature(best.metalTempC)}, hold ${fmt(best.holdMin)}).`;
   } else {
     reason =
-      `Does not cure: ${fmt(dwellMin)} min in ${stage.name} at ${fmt(lineSpeedMPerMin)} m/min, ${fmt(requiredMin!)} min needed ` +
+      `Does not cure: ${fmt(dwellMin)} min in ${stage.name} at ${w.speed(lineSpeedMPerMin)}, ${fmt(requiredMin!)} min needed ` +
       `(short by ${fmt(-marginMin!)} min). ` +
       (inRange !== null
-        ? `Run at ${fmt(inRange)} m/min or slower.`
-        : `Even the line's slowest speed (${fmt(line.lineSpeedMinMPerMin)} m/min) is too fast; use the batch oven or a thinner section.`);
+        ? `Run at ${w.speed(inRange)} or slower.`
+        : `Even the line's slowest speed (${w.speed(line.lineSpeedMinMPerMin)}) is too fast; use the batch oven or a thinner section.`);
   }
 
   return {
@@ -222,7 +234,7 @@ export function cureCheck(input: CureCheckInput): CureCheck {
   };
 }
 
-function noPointReason(airTempC: number, schedule: readonly CurePoint[]): string {
+function noPointReason(airTempC: number, schedule: readonly CurePoint[], w: CureWords): string {
   const lowest = Math.min(...schedule.map((p) => p.metalTempC));
-  return `Does not cure: the oven air (${fmt(airTempC)} °C) is not above any point of the cure schedule (lowest ${fmt(lowest)} °C); metal never reaches the air temperature.`;
+  return `Does not cure: the oven air (${w.temperature(airTempC)}) is not above any point of the cure schedule (lowest ${w.temperature(lowest)}); metal never reaches the air temperature.`;
 }

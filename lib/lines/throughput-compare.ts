@@ -325,7 +325,7 @@ export function throughputFigures(input: ThroughputCompareInput): ThroughputFigu
   if (line.kind === "batch") return batchFigures(line, input, { plan, partsPerCarrier, source, shiftHours, notes, coating, startTempC, words });
 
   // The speed: the scenario's, else the fastest the line can run and still cure the part.
-  const probe = cureCheck({ line, coating, thicknessMm: part.thicknessMm, lineSpeedMPerMin: overrides.lineSpeedMPerMin ?? line.lineSpeedMinMPerMin, startTempC }) as ConveyorCureCheck;
+  const probe = cureCheck({ line, coating, thicknessMm: part.thicknessMm, lineSpeedMPerMin: overrides.lineSpeedMPerMin ?? line.lineSpeedMinMPerMin, startTempC, words }) as ConveyorCureCheck;
   let speed: number;
   let speedSource: SpeedSource;
   if (overrides.lineSpeedMPerMin != null) {
@@ -341,7 +341,7 @@ export function throughputFigures(input: ThroughputCompareInput): ThroughputFigu
     speed = probe.fastestCuringSpeedInRangeMPerMin;
     speedSource = isAtLeast(speed, line.lineSpeedMaxMPerMin) ? "line-max" : "fastest-curing";
   }
-  const cure = speed === probe.lineSpeedMPerMin ? probe : (cureCheck({ line, coating, thicknessMm: part.thicknessMm, lineSpeedMPerMin: speed, startTempC }) as ConveyorCureCheck);
+  const cure = speed === probe.lineSpeedMPerMin ? probe : (cureCheck({ line, coating, thicknessMm: part.thicknessMm, lineSpeedMPerMin: speed, startTempC, words }) as ConveyorCureCheck);
   notes.push(...cure.warnings);
 
   // REFERENCES.md, conveyor lines: carriers/h = speed × 60 / pitch; dwell = oven path / speed.
@@ -436,6 +436,7 @@ function batchFigures(line: CompareBatchOven, input: ThroughputCompareInput, ctx
     coating: ctx.coating,
     thicknessMm: part.thicknessMm,
     startTempC: ctx.startTempC,
+    words,
   }) as BatchCureCheck;
   notes.push(...cure.warnings);
   const common = {

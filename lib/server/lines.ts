@@ -16,7 +16,9 @@ import { cureCheck, type CureCheck, type CureCheckLine } from "@/lib/lines/cure-
 import type { StageInput, StageKind } from "@/lib/lines/stages";
 import { lineTimeline, type LineTimeline } from "@/lib/lines/timeline";
 import type { CureCheckBody, LineInput } from "@/lib/validation/lines";
+import type { UnitSystem } from "@/lib/coating-math/units";
 import { nowSeconds, type UsageRef } from "./coatings";
+import { wordsFor } from "./throughput";
 import { ApiError, isUniqueViolation } from "./http";
 import { runsUsingLine } from "@/db/queries/runs";
 import { scenarioUsageOfLine } from "@/db/queries/scenarios";
@@ -274,7 +276,7 @@ function requestField(field: string): string {
   return field;
 }
 
-export async function cureCheckFor(lineId: number, body: CureCheckBody): Promise<CureCheckView> {
+export async function cureCheckFor(lineId: number, body: CureCheckBody, system: UnitSystem = "metric"): Promise<CureCheckView> {
   const db = await getDb();
   const line = await getLine(lineId);
   const coating = await findCoatingRow(db, body.coatingId);
@@ -291,6 +293,7 @@ export async function cureCheckFor(lineId: number, body: CureCheckBody): Promise
       thicknessMm: body.thicknessMm,
       lineSpeedMPerMin: line.kind === "conveyor" ? (body.lineSpeedMPerMin ?? line.lineSpeedNominalMPerMin) : body.lineSpeedMPerMin,
       startTempC: body.startTempC,
+      words: wordsFor(system),
     });
     return {
       lineId: line.id,

@@ -324,6 +324,25 @@ describe("POST /api/lines/[id]/cure-check", () => {
     expect(r.fastestCuringSpeedMPerMin).toBeCloseTo(60 / (heatUp + 12), 2);
   });
 
+  it("speaks the user's units: a US-unit user reads ft/min and °F in the reason", async () => {
+    const db = await getDb();
+    await db.updateTable("users").set({ unit_system: "us" }).where("email", "=", "supervisor@bramblecote.test").execute();
+    const coatingId = await singlePointCoating();
+    const res = await check("supervisor", await lineId(LINE1), { coatingId, thicknessMm: 6, lineSpeedMPerMin: 3, startTempC: 20 });
+    const r = (await res.json()).cureCheck;
+    // 1 ft = 0.3048 m exactly (NIST SP 811): 3 m/min = 9.84 ft/min; the fastest curing speed
+    // 60 m / 26.43 min = 2.27 m/min = 7.45 ft/min; 190 °C = 190 × 9/5 + 32 = 374 °F
+    expect(r.reason).toContain("at 9.84 ft/min");
+    expect(r.reason).toContain("Run at 7.45 ft/min or slower");
+    expect(r.reason).not.toMatch(/m\/min|°C/);
+    // the numbers themselves stay metric, as the API contract says
+    expect(r.lineSpeedMPerMin).toBe(3);
+    const thin = await check("supervisor", await lineId(LINE1), { coatingId, thicknessMm: 1.5, lineSpeedMPerMin: 3, startTempC: 20 });
+    const t = (await thin.json()).cureCheck;
+    expect(t.reason).toContain("heat-up 3.61 to 374 °F");
+    expect(t.reason).not.toMatch(/m\/min|°C/);
+  });
+
   it.each(ROLES)("any signed-in role (%s) may run it; the line's nominal speed is the default", async (role) => {
     const res = await check(role, await lineId(LINE1), { coatingId: await coatingId("PP-410"), thicknessMm: 2 });
     expect(res.status).toBe(200);

@@ -88,6 +88,9 @@ describe("coatings library and lines", () => {
     const result = page.getByTestId("cure-result");
     await expect.poll(() => result.getAttribute("data-pass"), { timeout: 15_000 }).toBe("false");
     await result.getByText("Does not cure").first().waitFor();
+    // the sentence speaks the user's units too (this manager works in US units)
+    expect(await result.textContent()).toContain("ft/min");
+    expect(await result.textContent()).not.toMatch(/\d m\/min/);
     const thickNeeded = parseFloat((await page.getByTestId("needed").textContent())!);
     await expect.poll(() => page.getByTestId("dwell").textContent(), { timeout: 15_000 }).toBe("20 min");
     await shot(page, "cure-check-thick-fails");

@@ -26,7 +26,11 @@ describe("sign-in and role navigation", () => {
   it.each(Object.entries(expected))("%s signs in and sees only its sections", async (role, links) => {
     const page = await signInPage(browser, `${role}@bramblecote.test`);
     await expect.poll(() => page.getByTestId("current-user").textContent(), { timeout: 15_000 }).toContain(role);
-    const nav = await page.getByRole("navigation", { name: "Sections" }).getByRole("link").allTextContents();
+    // work sections in the main bar; settings and administration beside the user's name
+    const nav = [
+      ...(await page.getByRole("navigation", { name: "Sections" }).getByRole("link").allTextContents()),
+      ...(await page.getByRole("navigation", { name: "Account and administration" }).getByRole("link").allTextContents()),
+    ];
     expect([...nav].sort()).toEqual([...links].sort());
     await shot(page, `home-${role}`);
     if (role !== "admin") {
