@@ -44,22 +44,32 @@ const targets = [
   { name: "GET /api/coatings (list)", path: "/api/coatings", method: "GET" },
 ];
 
-function run(t, connections) {
+function run(t, connections, duration = seconds) {
   return new Promise((resolve, reject) => {
-    autocannon(
+    const kinds = {};
+    const instance = autocannon(
       {
         url: base + t.path,
         method: t.method,
         body: t.body,
         connections,
-        duration: seconds,
+        duration,
         timeout: 20,
         headers: { cookie, "content-type": "application/json" },
       },
-      (err, r) => (err ? reject(err) : resolve(r)),
+      (err, r) => (err ? reject(err) : resolve({ ...r, errorKinds: kinds })),
     );
+    // what went wrong, by error code, so a failure can be told apart (timeout, reset, refused)
+    instance.on("reqError", (e) => {
+      const code = e?.code ?? e?.message ?? "unknown";
+      kinds[code] = (kinds[code] ?? 0) + 1;
+    });
   });
 }
+
+// Warm-up, not recorded: the first requests compile routes and warm the JIT, which would
+// otherwise land on whichever row runs first (the baseline).
+for (const t of targets) await run(t, 16, 2);
 
 let failed = false;
 const rows = [];
@@ -79,6 +89,7 @@ for (const connections of [64, 200]) {
       "p99 / baseline": (r.latency.p99 / Math.max(baseline.latency.p99, 1)).toFixed(2),
       "throughput / baseline": (r.requests.average / baseline.requests.average).toFixed(2),
       errors: r.errors + r.timeouts,
+      "error kinds": Object.entries(r.errorKinds).map(([k, n]) => `${k}×${n}`).join(" ") || "-",
       "non-2xx": r.non2xx,
     });
   }
