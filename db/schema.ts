@@ -316,6 +316,10 @@ export interface GaugesTable {
   /** remembered CSV column mapping { readingColumn, spotColumn?, areaColumn?, unit, hasHeader } */
   mapping_json: string | null;
   created_at: number;
+  /** months between verifications; the plant's choice (default 12) */
+  verify_interval_months: Generated<number>;
+  /** set when the gauge is retired (kept because film checks name it) */
+  retired_at: number | null;
 }
 
 /** DFT readings of one coat of a run; readings_json: number[][][] (sspc-pa2) or number[] (iso19840), µm. */
@@ -405,6 +409,35 @@ export interface MaterialUsageTable {
   recorded_at: number;
 }
 
+/**
+ * A saved racking plan, one per part × line: the choices, and the count / space count / limit as
+ * last saved (lists show these without planning again). orientation_override is null for the
+ * planner's best, else what lies along travel, up and across, e.g. "length-height-width".
+ */
+export interface RackPlansTable {
+  id: Generated<number>;
+  part_id: string;
+  line_id: number;
+  clearance_mm: number;
+  orientations: "any" | "upright";
+  orientation_override:
+    | "length-height-width"
+    | "width-height-length"
+    | "length-width-height"
+    | "width-length-height"
+    | "height-width-length"
+    | "height-length-width"
+    | null;
+  note: string;
+  parts_per_carrier: number;
+  space_count: number;
+  limited_by: "space" | "load";
+  created_by: string | null;
+  updated_by: string | null;
+  created_at: number;
+  updated_at: number;
+}
+
 export interface Database {
   users: UsersTable;
   sessions: SessionsTable;
@@ -432,6 +465,7 @@ export interface Database {
   purchase_requests: PurchaseRequestsTable;
   purchase_request_lines: PurchaseRequestLinesTable;
   material_usage: MaterialUsageTable;
+  rack_plans: RackPlansTable;
 }
 
 export type User = Selectable<UsersTable>;

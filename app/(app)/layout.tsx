@@ -19,6 +19,12 @@ export default async function AppLayout({ children }: { children: React.ReactNod
   return (
     <SwrProvider>
       <div className="min-h-screen">
+        <a
+          href="#main"
+          className="no-print sr-only rounded bg-plate px-3 py-2 text-ink focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50"
+        >
+          Skip to content
+        </a>
         <header className="no-print border-b border-plate-line bg-ink text-plate">
           <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 pt-2">
             <Link href="/" className="flex items-baseline gap-2 font-semibold tracking-tight">

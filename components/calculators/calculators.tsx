@@ -1,11 +1,17 @@
 "use client";
 import { useState } from "react";
+import { browserOnly } from "@/components/ui/browser-only";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { PowderCalculator } from "./powder-calculator";
-import { EcoatCalculator } from "./ecoat-calculator";
-import { LineCalculator } from "./line-calculator";
-import { CureCalculator } from "./cure-calculator";
-import { FilmCalculator } from "./film-calculator";
+
+// Each calculator is a chunk of its own, fetched in the browser once this page has hydrated, so
+// the page's first-load JavaScript is the unit switch and the section links. They render in the
+// browser only: a calculator hydrated from a late chunk would drop what was typed before it came.
+const loading = (label: string) => <p role="status" className="card text-sm text-ink-soft">Loading the {label} calculator…</p>;
+const PowderCalculator = browserOnly(() => import("./powder-calculator").then((m) => m.PowderCalculator), loading("powder"));
+const EcoatCalculator = browserOnly(() => import("./ecoat-calculator").then((m) => m.EcoatCalculator), loading("e-coat"));
+const LineCalculator = browserOnly(() => import("./line-calculator").then((m) => m.LineCalculator), loading("line"));
+const CureCalculator = browserOnly(() => import("./cure-calculator").then((m) => m.CureCalculator), loading("cure"));
+const FilmCalculator = browserOnly(() => import("./film-calculator").then((m) => m.FilmCalculator), loading("film"));
 
 const sections = [
   { id: "powder", label: "Powder use" },
@@ -16,7 +22,7 @@ const sections = [
 ];
 
 /**
- * The calculators page. Everything runs in the browser with the same code and schemas as
+ * The calculators page. Everything runs in the browser with the same code and input rules as
  * POST /api/calc/*; the unit switch here changes this page only (the header's switch changes
  * the account's preference, and this page follows it when it does).
  */

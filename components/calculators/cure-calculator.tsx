@@ -1,7 +1,7 @@
 "use client";
 import { cureHeatUp } from "@/lib/coating-math/cure";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { checkedResult, cureInputSchema, cureResultSchema, resultBlame } from "@/lib/validation/calc";
+import { CURE_INPUT, cureInputIssues, resultBlame } from "@/lib/coating-math/calc-inputs";
 import type { CureResult } from "@/app/api/calc/cure/route";
 import { CalculatorSection, HowComputed, NumberField, Results, SafetyNote, type ResultRow } from "./calculator-parts";
 import { formatShown, unitText } from "./display-units";
@@ -28,13 +28,14 @@ const custom = {
 export function CureCalculator({ system }: { system: UnitSystem }) {
   const { fields, values, setText } = useUnitFields(specs, system);
   const { result, errors } = runCalculator({
-    schema: cureInputSchema,
-    shape: cureInputSchema.shape,
+    rules: CURE_INPUT,
     specs,
     system,
     values,
+    check: cureInputIssues,
     custom,
-    compute: (input): CureResult => checkedResult(cureResultSchema, cureHeatUp(input), resultBlame.cure),
+    compute: (input): CureResult => cureHeatUp(input),
+    blame: resultBlame.cure,
   });
   const rows: ResultRow[] | null = result && [
     { label: "Metal heat-up", value: formatShown("timeMin", result.heatUpMin, system, 3), testId: "cure-heatup" },

@@ -1,7 +1,7 @@
 "use client";
 import { ecoatEstimate } from "@/lib/coating-math/ecoat";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { checkedResult, ecoatInputSchema, ecoatResultSchema, resultBlame } from "@/lib/validation/calc";
+import { ECOAT_INPUT, resultBlame } from "@/lib/coating-math/calc-inputs";
 import type { EcoatResult } from "@/app/api/calc/ecoat/route";
 import { CalculatorSection, HowComputed, NumberField, Results, SafetyNote, type ResultRow } from "./calculator-parts";
 import { formatShown, unitText } from "./display-units";
@@ -20,12 +20,12 @@ const specs = {
 export function EcoatCalculator({ system }: { system: UnitSystem }) {
   const { fields, values, setText } = useUnitFields(specs, system);
   const { result, errors } = runCalculator({
-    schema: ecoatInputSchema,
-    shape: ecoatInputSchema.shape,
+    rules: ECOAT_INPUT,
     specs,
     system,
     values,
-    compute: (input): EcoatResult => checkedResult(ecoatResultSchema, ecoatEstimate(input), resultBlame.ecoat),
+    compute: (input): EcoatResult => ecoatEstimate(input),
+    blame: resultBlame.ecoat,
   });
   const parts = typeof values.parts === "number" ? values.parts : 1;
   const rows: ResultRow[] | null = result && [

@@ -1,8 +1,7 @@
 "use client";
 import { useId, useRef, useState } from "react";
-import Papa from "papaparse";
 import { isAbove, isBelow } from "@/lib/coating-math/compare";
-import { DomainError } from "@/lib/coating-math/errors";
+import { DomainError, isInRange } from "@/lib/coating-math/errors";
 import {
   evaluateFilm,
   pa2SamplingPlan,
@@ -12,7 +11,15 @@ import {
   ISO19840_LOW_FRACTION,
 } from "@/lib/coating-math/film";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { checkedResult, filmInputSchema, filmResultSchema, powderInputSchema, resultBlame } from "@/lib/validation/calc";
+import {
+  FILM_NOMINAL_INPUT,
+  FILM_SPEC_INPUT,
+  filmInputIssues,
+  finiteResult,
+  POWDER_INPUT,
+  resultBlame,
+  type FilmReadingsInput,
+} from "@/lib/coating-math/calc-inputs";
 import type { FilmResult } from "@/app/api/calc/film/route";
 import { CalculatorSection, HowComputed, NumberField, Results, type ResultRow } from "./calculator-parts";
 import { formatShown, unitText } from "./display-units";
@@ -29,7 +36,8 @@ const specs = {
 } satisfies Record<string, FieldSpec>;
 type SpecName = keyof typeof specs;
 
-const [pa2Shape, isoShape] = [filmInputSchema.options[0].shape, filmInputSchema.options[1].shape];
+const pa2Rules = FILM_SPEC_INPUT;
+const isoRules = { ...FILM_SPEC_INPUT, ...FILM_NOMINAL_INPUT };
 
 const custom: Partial<Record<SpecName, string>> = {
   specMinUm: "Enter a minimum no larger than the maximum.",
@@ -54,7 +62,7 @@ function evaluate(rule: Rule, values: Record<SpecName, number | string | undefin
   const areas = toAreas(parsed, PA2_SPOTS_PER_AREA);
   const flat = areas.flat();
   const readingErrors = parsed.bad.map((b) => `Line ${b.line}, cell ${b.cell}: “${b.text}” ${b.why}.`);
-  const input =
+  const input: FilmReadingsInput =
     rule === "sspc-pa2"
       ? { rule, specMinUm: values.specMinUm, specMaxUm: values.specMaxUm, areas: areas.map((a) => a.map((s) => s.readingsUm)) }
       : {
@@ -64,19 +72,13 @@ function evaluate(rule: Rule, values: Record<SpecName, number | string | undefin
           nominalUm: values.nominalUm,
           readingsUm: flat.flatMap((s) => s.readingsUm),
         };
-  const parsedInput = filmInputSchema.safeParse(input);
+  const issues = filmInputIssues(input);
   let errors: Partial<Record<SpecName, string>> = {};
-  if (!parsedInput.success) {
-    errors = fieldMessages<SpecName>(parsedInput.error, {
-      shape: rule === "sspc-pa2" ? pa2Shape : isoShape,
-      specs,
-      system,
-      values,
-      custom,
-    });
+  if (issues.length > 0) {
+    errors = fieldMessages<SpecName>(issues, { rules: rule === "sspc-pa2" ? pa2Rules : isoRules, specs, system, values, custom });
     // A bad cell already explains a short spot; listing both would say the same thing twice.
-    for (const issue of parsed.bad.length > 0 ? [] : parsedInput.error.issues) {
-      const [top, a, s] = issue.path as (string | number)[];
+    for (const issue of parsed.bad.length > 0 ? [] : issues) {
+      const [top, a, s] = issue.path;
       if (top === "areas" && typeof a === "number" && typeof s === "number") {
         const spot = areas[a]?.[s];
         readingErrors.push(`Area ${a + 1}, spot ${s + 1}${spot ? ` (line ${spot.line})` : ""}: ${issue.message}.`);
@@ -86,9 +88,10 @@ function evaluate(rule: Rule, values: Record<SpecName, number | string | undefin
       }
     }
   }
-  if (!parsedInput.success || readingErrors.length > 0) return { result: null, errors, readingErrors, areas };
+  if (issues.length > 0 || readingErrors.length > 0) return { result: null, errors, readingErrors, areas };
   try {
-    const result: FilmResult = checkedResult(filmResultSchema, evaluateFilm(parsedInput.data), resultBlame.film);
+    // Every number was checked above, so the input is complete.
+    const result: FilmResult = finiteResult(evaluateFilm(input as Parameters<typeof evaluateFilm>[0]), resultBlame.film);
     return { result, errors, readingErrors, areas };
   } catch (e) {
     if (e instanceof DomainError) return { result: null, errors, readingErrors: [e.message], areas };
@@ -129,11 +132,11 @@ export function FilmCalculator({ system }: { system: UnitSystem }) {
     return null;
   };
 
-  const surfaceSchema = powderInputSchema.shape.areaM2;
+  const surfaceRange = POWDER_INPUT.areaM2.range;
   const surfaceText = fields.surfaceAreaM2.text.trim();
   const surfaceError =
-    surfaceText !== "" && !surfaceSchema.safeParse(values.surfaceAreaM2).success
-      ? `${typeof values.surfaceAreaM2 === "string" ? `“${surfaceText}” is not a number: enter` : "Enter"} ${rangeText(surfaceSchema, "areaM2", system)}.`
+    surfaceText !== "" && !isInRange(values.surfaceAreaM2, surfaceRange)
+      ? `${typeof values.surfaceAreaM2 === "string" ? `“${surfaceText}” is not a number: enter` : "Enter"} ${rangeText(surfaceRange, "areaM2", system)}.`
       : undefined;
   const plan = surfaceText !== "" && !surfaceError ? pa2SamplingPlan(values.surfaceAreaM2 as number) : null;
 
@@ -228,14 +231,19 @@ export function FilmCalculator({ system }: { system: UnitSystem }) {
                 onChange={(e) => {
                   const file = e.target.files?.[0];
                   if (!file) return;
-                  Papa.parse<unknown[]>(file, {
-                    skipEmptyLines: false,
-                    complete: (out) => {
-                      setReadings({ system, text: rowsToText(out.data) });
-                      setFileNote(`Loaded ${file.name}: ${out.data.length} rows.`);
-                    },
-                    error: (err) => setFileNote(`Could not read ${file.name}: ${err.message}`),
-                  });
+                  // papaparse is fetched only when a file is chosen: it stays out of the page's first load.
+                  import("papaparse")
+                    .then(({ default: Papa }) =>
+                      Papa.parse<unknown[]>(file, {
+                        skipEmptyLines: false,
+                        complete: (out) => {
+                          setReadings({ system, text: rowsToText(out.data) });
+                          setFileNote(`Loaded ${file.name}: ${out.data.length} rows.`);
+                        },
+                        error: (err) => setFileNote(`Could not read ${file.name}: ${err.message}`),
+                      }),
+                    )
+                    .catch(() => setFileNote(`Could not read ${file.name}: the CSV reader did not load. Try again.`));
                   e.target.value = "";
                 }}
               />

@@ -1,7 +1,7 @@
 "use client";
 import { lineThroughput } from "@/lib/coating-math/line";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { checkedResult, lineInputSchema, lineResultSchema, resultBlame } from "@/lib/validation/calc";
+import { LINE_INPUT, resultBlame } from "@/lib/coating-math/calc-inputs";
 import type { LineResult } from "@/app/api/calc/line/route";
 import { CalculatorSection, HowComputed, NumberField, Results, type ResultRow } from "./calculator-parts";
 import { formatShown, unitText } from "./display-units";
@@ -20,12 +20,12 @@ const specs = {
 export function LineCalculator({ system }: { system: UnitSystem }) {
   const { fields, values, setText } = useUnitFields(specs, system);
   const { result, errors } = runCalculator({
-    schema: lineInputSchema,
-    shape: lineInputSchema.shape,
+    rules: LINE_INPUT,
     specs,
     system,
     values,
-    compute: (input): LineResult => checkedResult(lineResultSchema, lineThroughput(input), resultBlame.line),
+    compute: (input): LineResult => lineThroughput(input),
+    blame: resultBlame.line,
   });
   const rows: ResultRow[] | null = result && [
     { label: "Carriers per hour", value: formatShown("count", result.carriersPerHour, system), testId: "line-carriers" },

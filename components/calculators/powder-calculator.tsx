@@ -1,7 +1,7 @@
 "use client";
 import { powderEstimate } from "@/lib/coating-math/powder";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { checkedResult, powderInputSchema, powderResultSchema, resultBlame } from "@/lib/validation/calc";
+import { POWDER_INPUT, resultBlame } from "@/lib/coating-math/calc-inputs";
 import type { PowderResult } from "@/app/api/calc/powder/route";
 import { CalculatorSection, HowComputed, NumberField, Results, SafetyNote, type ResultRow } from "./calculator-parts";
 import { formatShown, unitText } from "./display-units";
@@ -21,12 +21,12 @@ const specs = {
 export function PowderCalculator({ system, currency }: { system: UnitSystem; currency: string }) {
   const { fields, values, setText } = useUnitFields(specs, system);
   const { result, errors } = runCalculator({
-    schema: powderInputSchema,
-    shape: powderInputSchema.shape,
+    rules: POWDER_INPUT,
     specs,
     system,
     values,
-    compute: (input): PowderResult => checkedResult(powderResultSchema, powderEstimate(input), resultBlame.powder),
+    compute: (input): PowderResult => powderEstimate(input),
+    blame: resultBlame.powder,
   });
   const parts = typeof values.parts === "number" ? values.parts : 1;
   const rows: ResultRow[] | null = result && [

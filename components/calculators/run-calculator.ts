@@ -1,7 +1,7 @@
-import type { z } from "zod";
+import { finiteResult, numberIssues, withDefaults, type InputIssue, type NumberRules, type RuleValues } from "@/lib/coating-math/calc-inputs";
 import { DomainError } from "@/lib/coating-math/errors";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { fieldMessages, presentValues, type FieldSpec } from "./use-unit-fields";
+import { fieldMessages, type FieldSpec } from "./use-unit-fields";
 
 export interface CalculatorRun<K extends string, R> {
   result: R | null;
@@ -9,22 +9,28 @@ export interface CalculatorRun<K extends string, R> {
 }
 
 /**
- * Validates the typed values with the API's own input schema and runs the pure calculation in
- * the browser: the same answer as POST /api/calc/*, without a round trip.
+ * Checks the typed values against the API's own input rules (lib/coating-math/calc-inputs.ts,
+ * the limits POST /api/calc/* validates with) and runs the pure calculation in the browser: the
+ * same answer as the API, without a round trip and without zod on the page.
  */
-export function runCalculator<K extends string, S extends z.ZodType, R>(opts: {
-  schema: S;
-  shape: Partial<Record<K, z.ZodType>>;
+export function runCalculator<K extends string, T extends NumberRules, R extends object>(opts: {
+  rules: T;
   specs: Record<K, FieldSpec>;
   system: UnitSystem;
   values: Record<K, number | string | undefined>;
+  /** the checks; the number ranges of `rules` unless a calculator has rules between fields */
+  check?: (values: Record<K, number | string | undefined>) => InputIssue[];
   custom?: Partial<Record<K, string>>;
-  compute: (input: z.output<S>) => R;
+  compute: (input: RuleValues<T>) => R;
+  /** output field → the input to name when it is not a finite number */
+  blame: Readonly<Record<string, string>>;
 }): CalculatorRun<K, R> {
-  const parsed = opts.schema.safeParse(presentValues(opts.values));
-  if (!parsed.success) return { result: null, errors: fieldMessages<K>(parsed.error, opts) };
+  const issues = opts.check ? opts.check(opts.values) : numberIssues(opts.rules, opts.values);
+  if (issues.length > 0) {
+    return { result: null, errors: fieldMessages<K>(issues, { ...opts, rules: opts.rules as Partial<Record<K, T[keyof T]>> }) };
+  }
   try {
-    return { result: opts.compute(parsed.data), errors: {} };
+    return { result: finiteResult(opts.compute(withDefaults(opts.rules, opts.values)), opts.blame), errors: {} };
   } catch (e) {
     // Inputs in range that together overflow (or a rule only the calculation knows).
     if (e instanceof DomainError && e.field in opts.specs) {

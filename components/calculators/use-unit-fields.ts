@@ -1,6 +1,7 @@
 "use client";
 import { useState } from "react";
-import type { z } from "zod";
+import type { InputIssue, NumberRule } from "@/lib/coating-math/calc-inputs";
+import type { NumericRange } from "@/lib/coating-math/errors";
 import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 import { apiToShown, inputText, parseDecimal, shownToApi, unitText, type DisplayKind } from "./display-units";
 
@@ -12,7 +13,7 @@ export interface FieldSpec {
 
 export interface FieldState {
   text: string;
-  /** the API value; the typed text when it is not a number (zod then names it); undefined when blank */
+  /** the API value; the typed text when it is not a number (the check then names it); undefined when blank */
   value: number | string | undefined;
 }
 
@@ -70,68 +71,42 @@ export function useUnitFields<K extends string>(specs: Record<K, FieldSpec>, sys
   return { fields: current.fields, values, setText };
 }
 
-/** Drops blank fields so zod applies its defaults and treats optional fields as absent. */
-export function presentValues<K extends string>(values: Record<K, number | string | undefined>): Partial<Record<K, number | string>> {
-  const out: Partial<Record<K, number | string>> = {};
-  for (const [k, v] of Object.entries(values) as [K, number | string | undefined][]) if (v !== undefined) out[k] = v;
-  return out;
-}
-
 // ---------------------------------------------------------------------------------------------
-// Field messages: the zod schemas of the API decide what is wrong; the message says what to
-// enter in the units the user is looking at.
+// Field messages: the API's input rules (lib/coating-math/calc-inputs.ts) decide what is wrong;
+// the message says what to enter in the units the user is looking at.
 
-interface NumberSchemaInfo {
-  minValue: number | null;
-  maxValue: number | null;
-  isInt?: boolean;
-  safeParse(v: unknown): { success: boolean };
-}
-
-function unwrapNumber(schema: z.ZodType): NumberSchemaInfo | null {
-  let s = schema as unknown as { _zod: { def: { type: string; innerType?: unknown } } };
-  while (s._zod.def.innerType && (s._zod.def.type === "default" || s._zod.def.type === "optional")) {
-    s = s._zod.def.innerType as typeof s;
-  }
-  return s._zod.def.type === "number" ? (s as unknown as NumberSchemaInfo) : null;
-}
-
-/** "a number greater than 0 and at most 196.85 mil" from the API schema's bounds, in the shown unit. */
-export function rangeText(schema: z.ZodType, kind: DisplayKind, system: UnitSystem): string {
-  const s = unwrapNumber(schema);
+/** "a number greater than 0 and at most 196.85 mil": the API range, in the shown unit. */
+export function rangeText(range: NumericRange | undefined, kind: DisplayKind, system: UnitSystem): string {
   const unit = unitText(kind, system);
-  const show = (apiValue: number) => formatSignificant(apiToShown(kind, apiValue, system), 5);
   const suffix = unit ? ` ${unit}` : "";
-  if (!s) return `a number${suffix ? ` in${suffix}` : ""}`;
+  if (!range) return `a number${suffix ? ` in${suffix}` : ""}`;
+  const show = (apiValue: number) => formatSignificant(apiToShown(kind, apiValue, system), 5);
   const parts: string[] = [];
-  if (s.minValue !== null && Number.isFinite(s.minValue)) {
-    parts.push(`${s.safeParse(s.minValue).success ? "at least" : "greater than"} ${show(s.minValue)}`);
-  }
-  if (s.maxValue !== null && Number.isFinite(s.maxValue)) {
-    parts.push(`${s.safeParse(s.maxValue).success ? "at most" : "less than"} ${show(s.maxValue)}`);
-  }
-  return `${s.isInt ? "a whole number" : "a number"}${parts.length ? ` ${parts.join(" and ")}` : ""}${suffix}`;
+  if (range.gte !== undefined) parts.push(`at least ${show(range.gte)}`);
+  else if (range.gt !== undefined) parts.push(`greater than ${show(range.gt)}`);
+  if (range.lte !== undefined) parts.push(`at most ${show(range.lte)}`);
+  else if (range.lt !== undefined) parts.push(`less than ${show(range.lt)}`);
+  return `${range.integer ? "a whole number" : "a number"}${parts.length ? ` ${parts.join(" and ")}` : ""}${suffix}`;
 }
 
 export interface MessageContext<K extends string> {
-  shape: Partial<Record<K, z.ZodType>>;
+  rules: Partial<Record<K, NumberRule>>;
   specs: Record<K, FieldSpec>;
   system: UnitSystem;
   values: Record<K, number | string | undefined>;
-  /** plain-words text for cross-field rules (refinements), by field */
+  /** plain-words text for cross-field rules, by field */
   custom?: Partial<Record<K, string>>;
 }
 
-/** zod issues → one message per top-level field, in the displayed units. */
-export function fieldMessages<K extends string>(error: z.ZodError, ctx: MessageContext<K>): Partial<Record<K, string>> {
+/** Input problems → one message per top-level field, in the displayed units. */
+export function fieldMessages<K extends string>(issues: readonly InputIssue[], ctx: MessageContext<K>): Partial<Record<K, string>> {
   const out: Partial<Record<K, string>> = {};
-  for (const issue of error.issues) {
+  for (const issue of issues) {
     const name = issue.path[0] as K | undefined;
-    if (name === undefined || out[name] || !ctx.specs[name]) continue;
-    const schema = ctx.shape[name];
-    const range = schema ? rangeText(schema, ctx.specs[name].kind, ctx.system) : "a number";
+    if (name === undefined || issue.path.length > 1 || out[name] || !ctx.specs[name]) continue;
+    const range = rangeText(ctx.rules[name]?.range, ctx.specs[name].kind, ctx.system);
     const value = ctx.values[name];
-    if (issue.code === "custom") out[name] = ctx.custom?.[name] ?? issue.message;
+    if (issue.code === "rule") out[name] = ctx.custom?.[name] ?? issue.message;
     else if (value === undefined) out[name] = `Required: enter ${range}.`;
     else if (typeof value === "string") out[name] = `“${value.trim()}” is not a number: enter ${range}.`;
     else out[name] = `Enter ${range}.`;

@@ -3,7 +3,7 @@ import { useState } from "react";
 import { FetchError, sendJson } from "@/lib/fetcher";
 import type { CoatingView } from "@/lib/server/coatings";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { CHEMISTRY_LABELS, ECOAT_CHEMISTRIES, POWDER_CHEMISTRIES } from "@/lib/validation/coatings";
+import { CHEMISTRY_LABELS, ECOAT_CHEMISTRIES, POWDER_CHEMISTRIES } from "@/lib/coatings/chemistries";
 import { TextField } from "@/components/ui/text-field";
 import { draft, parse, parsePlain, unitOf, type UnitKind } from "@/components/lines/unit-draft";
 

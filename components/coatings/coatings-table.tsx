@@ -5,7 +5,7 @@ import useSWR from "swr";
 import type { CoatingsList } from "@/app/api/coatings/route";
 import type { CoatingView } from "@/lib/server/coatings";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { CHEMISTRY_LABELS } from "@/lib/validation/coatings";
+import { CHEMISTRY_LABELS } from "@/lib/coatings/chemistries";
 import { money, show, unitOf, toShown } from "@/components/lines/unit-draft";
 import { StockMarks, Swatch } from "./stock-marks";
 

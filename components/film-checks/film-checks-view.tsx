@@ -1,6 +1,7 @@
 "use client";
-// A run's film checks: enter a coat's DFT readings, see the verdict with every reason, the
-// histogram against the spec band, the other tests (cure, adhesion, appearance, coverage) and the log.
+// A run's film checks: the SSPC-PA 2 sampling plan, entering a coat's DFT readings, the verdict
+// with every reason, the histogram against the spec band, editing and deleting a check, the other
+// tests (cure, adhesion, appearance, coverage) and the change log in words.
 
 import Link from "next/link";
 import { useState } from "react";
@@ -12,19 +13,20 @@ import type { FilmCheckView, GaugeView, RunFilmChecks } from "@/lib/server/film-
 import { FilmHistogram } from "./film-histogram";
 import { ReadingEntry } from "./reading-entry";
 import { FilmTestsPanel } from "./film-tests-panel";
+import { ChangeLogList, when } from "./change-log-list";
+import { CheckEditor } from "./check-editor";
+import { SamplingPanel } from "./sampling-panel";
 
 interface Props {
   runId: number;
   unitSystem: UnitSystem;
   canWrite: boolean;
   isAdmin: boolean;
+  /** whether the gauges page is open to this role (link shown) */
+  canSeeGauges: boolean;
 }
 
-function when(s: number) {
-  return new Date(s * 1000).toISOString().slice(0, 16).replace("T", " ") + " UTC";
-}
-
-export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin }: Props) {
+export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin, canSeeGauges }: Props) {
   const url = `/api/runs/${runId}/film-checks`;
   const { data, error, isLoading, mutate } = useSWR<RunFilmChecks, FetchError>(url);
   const gauges = useSWR<{ gauges: GaugeView[] }, FetchError>("/api/gauges");
@@ -45,20 +47,33 @@ export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin }: Pr
   const [saving, setSaving] = useState(false);
   const [saveError, setSaveError] = useState<{ message: string; fields: Record<string, string> } | null>(null);
   const [asking, setAsking] = useState<number | null>(null);
+  const [editing, setEditing] = useState<number | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
 
-  if (isLoading) return <p className="text-ink-faint">Loading film checks…</p>;
-  if (error || !data) return <p role="alert" className="text-oxide">{error?.message ?? "Could not load the film checks."}</p>;
+  if (isLoading) return <p role="status" className="text-ink-faint">Loading film checks…</p>;
+  if (error || !data) {
+    return (
+      <div role="alert" className="card space-y-2 text-oxide">
+        <p>{error?.status === 404 ? "There is no such run." : (error?.message ?? "Could not load the film checks.")}</p>
+        {error?.status !== 404 && <button type="button" className="btn-quiet" onClick={() => void mutate()}>Try again</button>}
+      </div>
+    );
+  }
 
-  const { run, coats, checks, tests, log } = data;
+  const { run, coats, checks, tests, log, sampling } = data;
   const writable = canWrite && !run.locked;
   const coat = coats.find((c) => c.coatIndex === coatIndex) ?? coats[0];
-  const gauge = gauges.data?.gauges.find((g) => g.id === gaugeId) ?? null;
+  const allGauges = gauges.data?.gauges ?? [];
+  // Retired gauges stay on old records but are not offered for new readings.
+  const inUse = allGauges.filter((g) => g.retiredOn === null);
+  const gauge = inUse.find((g) => g.id === gaugeId) ?? null;
+  const lockReason = "This run is done: only an admin may change its film records.";
 
   async function save() {
     setSaving(true);
     setSaveError(null);
     const toUm = (t: string) => (t.trim() === "" ? null : fromDisplay("filmUm", Number(t), sys));
-    const common = { coatIndex: coat.coatIndex, gaugeId, specMinUm: toUm(specMin), specMaxUm: toUm(specMax) };
+    const common = { coatIndex: coat.coatIndex, gaugeId: gauge?.id ?? null, specMinUm: toUm(specMin), specMaxUm: toUm(specMax) };
     const body =
       rule === "sspc-pa2"
         ? { rule, ...common, areas: groupReadings(readingsUm, perSpot, perArea) }
@@ -79,6 +94,7 @@ export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin }: Pr
     try {
       await sendJson(`/api/film-checks/${id}`, "DELETE");
       setAsking(null);
+      setNotice("The film check was deleted; the deletion is in the change log.");
       await mutate();
     } catch (e) {
       setSaveError({ message: e instanceof Error ? e.message : "Could not delete.", fields: {} });
@@ -94,11 +110,21 @@ export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin }: Pr
           <Link className="text-phosphate-dark underline" href={`/runs/${run.id}`}>back to the run</Link>
         </p>
         {run.status === "done" && (
-          <p className="mt-2 rounded border border-caution-edge bg-caution-light p-2 text-sm">
-            This run is done: its film records are kept{isAdmin ? "; as admin you may still correct them, and every change is logged." : " and only an admin may change them."}
+          <p id="fc-lock-reason" className="mt-2 rounded border border-caution-edge bg-caution-light p-2 text-sm">
+            This run is done: its film records are kept{isAdmin ? "; as admin you may still correct them, and every change is logged." : " and only an admin may change them, so editing is off."}
+          </p>
+        )}
+        {!canWrite && (
+          <p className="mt-2 text-sm text-ink-soft">Read only: operators, supervisors and admins record and edit film checks.</p>
+        )}
+        {canSeeGauges && (
+          <p className="mt-1 text-sm">
+            <Link className="text-phosphate-dark underline" href="/quality/gauges">Gauges and their verification</Link>
           </p>
         )}
       </header>
+
+      <SamplingPanel sampling={sampling} coats={coats} unitSystem={sys} />
 
       {writable && coats.length > 0 && (
         <section className="card space-y-4" aria-labelledby="new-check">
@@ -121,12 +147,28 @@ export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin }: Pr
             </div>
             <div>
               <label htmlFor="fc-gauge" className="label">Gauge</label>
-              <select id="fc-gauge" className="field" value={gaugeId ?? ""} onChange={(e) => setGaugeId(e.target.value ? Number(e.target.value) : null)}>
+              <select
+                id="fc-gauge"
+                className="field"
+                value={gauge?.id ?? ""}
+                aria-describedby={gauge && gauge.verification !== "current" ? "fc-gauge-warn" : undefined}
+                onChange={(e) => setGaugeId(e.target.value ? Number(e.target.value) : null)}
+              >
                 <option value="">Not recorded</option>
-                {gauges.data?.gauges.map((g) => (
-                  <option key={g.id} value={g.id}>{`${g.name} (${g.gaugeType === "type1" ? "type 1" : "type 2"}${g.verifiedOn ? `, verified ${g.verifiedOn}` : ""})`}</option>
+                {inUse.map((g) => (
+                  <option key={g.id} value={g.id}>
+                    {`${g.name} (${g.gaugeType === "type1" ? "type 1" : "type 2"}${g.verifiedOn ? `, verified ${g.verifiedOn}` : ""}${g.verification === "overdue" ? ", verification overdue" : g.verification === "never" ? ", never verified" : ""})`}
+                  </option>
                 ))}
               </select>
+              {gauges.error && <p className="field-error">Could not load the gauges; readings can still be saved without one.</p>}
+              {gauge && gauge.verification !== "current" && (
+                <p id="fc-gauge-warn" className="mt-1 max-w-xs text-xs text-caution">
+                  {gauge.verification === "overdue"
+                    ? `Verification was due ${gauge.verificationDueOn}: check ${gauge.name} on reference standards as your plant's procedure says before relying on it.`
+                    : `No verification is recorded for ${gauge.name}.`}
+                </p>
+              )}
             </div>
             {rule === "sspc-pa2" && (
               <>
@@ -178,10 +220,12 @@ export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin }: Pr
 
       <section aria-labelledby="checks-h" className="space-y-3">
         <h2 id="checks-h" className="text-lg font-semibold">Film checks</h2>
+        {notice && <p role="status" className="text-sm text-pass">{notice}</p>}
         {checks.length === 0 && <p className="text-ink-faint">No readings recorded for this run yet.</p>}
         {checks.map((c: FilmCheckView) => {
           const cs = coats.find((x) => x.coatIndex === c.coatIndex);
           const flat = flattenReadings(c.areas ?? c.readingsUm ?? []);
+          const history = log.filter((l) => l.entity === "film_check" && l.entityId === c.id);
           return (
             <article key={c.id} className="card space-y-2" data-testid="film-check">
               <div className="flex flex-wrap items-center gap-3">
@@ -189,24 +233,55 @@ export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin }: Pr
                 <span className={`rounded px-2 py-0.5 text-sm font-semibold ${c.pass ? "bg-pass-light text-pass" : "bg-oxide-light text-oxide"}`}>{c.pass ? "Pass" : "Fail"}</span>
               </div>
               <p className="text-sm text-ink-soft">
-                {`${c.readingCount} readings, mean ${c.meanUm === null ? "—" : fmt(c.meanUm)}; spec ${fmt(c.specMinUm)}–${fmt(c.specMaxUm)}${c.specMinOverrideUm !== null || c.specMaxOverrideUm !== null ? " (set on this check)" : ""}; gauge ${c.gaugeName ?? "not recorded"}; by ${c.createdBy ?? "—"}, ${when(c.createdAt)}`}
+                {`${c.readingCount} readings, mean ${c.meanUm === null ? "—" : fmt(c.meanUm)}; spec ${fmt(c.specMinUm)}–${fmt(c.specMaxUm)}${c.specMinOverrideUm !== null || c.specMaxOverrideUm !== null ? " (set on this check)" : ""}; gauge ${c.gaugeName ?? "not recorded"}; by ${c.createdBy ?? "—"}, ${when(c.createdAt)}${c.updatedAt > c.createdAt ? `; last edited ${when(c.updatedAt)}` : ""}`}
               </p>
               {c.reasons.length > 0 && (
                 <ul className="list-disc pl-5 text-sm text-oxide" aria-label="Why it fails">{c.reasons.map((r) => <li key={r}>{r}</li>)}</ul>
               )}
               {c.warnings.length > 0 && <ul className="list-disc pl-5 text-sm text-caution">{c.warnings.map((r) => <li key={r}>{r}</li>)}</ul>}
-              <FilmHistogram valuesUm={flat} specMinUm={c.specMinUm} specMaxUm={c.specMaxUm} unitSystem={sys} title={`Readings of coat ${c.coatIndex + 1}`} />
-              {writable && (
+              {c.notes && <p className="text-sm">{`Notes: ${c.notes}`}</p>}
+              {editing === c.id ? (
+                <CheckEditor
+                  check={c}
+                  coats={coats}
+                  gauges={allGauges}
+                  unitSystem={sys}
+                  onCancel={() => setEditing(null)}
+                  onSaved={() => {
+                    setEditing(null);
+                    setNotice("Changes saved and logged.");
+                    void mutate();
+                  }}
+                />
+              ) : (
+                <FilmHistogram valuesUm={flat} specMinUm={c.specMinUm} specMaxUm={c.specMaxUm} unitSystem={sys} title={`Readings of coat ${c.coatIndex + 1}`} />
+              )}
+              {writable && editing !== c.id && (
                 asking === c.id ? (
-                  <div className="flex gap-2" role="group" aria-label="Confirm delete">
+                  <div className="flex flex-wrap items-center gap-2" role="group" aria-label="Confirm delete">
                     <span className="text-sm">Delete these readings? The deletion is logged.</span>
                     <button type="button" className="btn-danger" onClick={() => void remove(c.id)}>Delete</button>
-                    <button type="button" className="btn-quiet" onClick={() => setAsking(null)}>Keep</button>
+                    <button type="button" className="btn-quiet" autoFocus onClick={() => setAsking(null)}>Keep</button>
                   </div>
                 ) : (
-                  <button type="button" className="btn-quiet" onClick={() => setAsking(c.id)}>Delete…</button>
+                  <div className="flex gap-2">
+                    <button type="button" className="btn-quiet" onClick={() => { setNotice(null); setEditing(c.id); }}>Edit readings…</button>
+                    <button type="button" className="btn-quiet" onClick={() => setAsking(c.id)}>Delete…</button>
+                  </div>
                 )
               )}
+              {canWrite && run.locked && (
+                <div className="flex items-center gap-2">
+                  <button type="button" className="btn-quiet" disabled aria-describedby={`lock-${c.id}`}>Edit readings…</button>
+                  <span id={`lock-${c.id}`} className="text-sm text-ink-soft">{lockReason}</span>
+                </div>
+              )}
+              <details className="text-sm">
+                <summary className="cursor-pointer text-ink-soft">{`History of this check (${history.length})`}</summary>
+                <div className="mt-1">
+                  <ChangeLogList entries={history} empty="No changes logged for this check." />
+                </div>
+              </details>
             </article>
           );
         })}
@@ -216,12 +291,11 @@ export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin }: Pr
 
       <section aria-labelledby="log-h">
         <details className="card">
-          <summary id="log-h" className="cursor-pointer font-semibold">{`Change log (${log.length})`}</summary>
-          <ul className="mt-2 space-y-1 text-sm">
-            {log.map((l) => (
-              <li key={l.id}>{`${when(l.at)} — ${l.userName ?? "unknown"} — ${l.action} ${l.entity.replace("_", " ")} ${l.entityId}`}</li>
-            ))}
-          </ul>
+          <summary id="log-h" className="cursor-pointer font-semibold">{`Change log of the run (${log.length})`}</summary>
+          <p className="mt-1 text-xs text-ink-faint">Every recording, edit and deletion of this run&apos;s film checks and tests, newest first; film values in your units.</p>
+          <div className="mt-2">
+            <ChangeLogList entries={log} empty="Nothing recorded yet." />
+          </div>
         </details>
       </section>
     </div>

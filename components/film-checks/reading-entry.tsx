@@ -3,7 +3,6 @@
 // or by importing a gauge's CSV export through a column mapping remembered per gauge.
 
 import { useRef, useState } from "react";
-import Papa from "papaparse";
 import { parseCell, parseCells, type CellError } from "@/lib/film-checks/readings";
 import { readMappedCsv, type CsvMapping } from "@/lib/film-checks/csv-mapping";
 import { toDisplay, type UnitSystem } from "@/lib/coating-math/display-units";
@@ -76,7 +75,8 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
     setCsvErrors([]);
     setCsvProblem(null);
     setCsvNote(null);
-    Papa.parse<string[]>(file, {
+    // papaparse loads only when a file is chosen: most entry is by keyboard.
+    void import("papaparse").then(({ default: Papa }) => Papa.parse<string[]>(file, {
       skipEmptyLines: true,
       complete: (res) => {
         const data = res.data;
@@ -90,7 +90,7 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
         } else setMapping((m) => ({ ...m, readingColumn: header.includes(m.readingColumn) ? m.readingColumn : "" }));
       },
       error: (err) => setCsvProblem(`The file could not be read: ${err.message}`),
-    });
+    }), () => setCsvProblem("The file reader could not be loaded; check the connection and choose the file again."));
   }
   async function applyCsv() {
     if (!rows) return;
@@ -106,7 +106,7 @@ export function ReadingEntry({ unitSystem: sys, readingsUm, onChange, readingsPe
     setCsvNote(`${r.valuesUm.length} readings taken from ${fileName}.`);
     setRows(null);
     if (remember && gauge) {
-      await sendJson("/api/gauges", "POST", { name: gauge.name, gaugeType: gauge.gaugeType, mapping }).catch(() => undefined);
+      await sendJson(`/api/gauges/${gauge.id}`, "PUT", { mapping }).catch(() => undefined);
       onGaugeSaved();
     }
   }

@@ -1,17 +1,25 @@
 "use client";
 import Link from "next/link";
-import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import useSWR from "swr";
 import { FetchError } from "@/lib/fetcher";
 import type { ConveyorLineView, LineView } from "@/lib/server/lines";
-import type { UsageRef } from "@/lib/server/coatings";
 import { lineTimeline } from "@/lib/lines/timeline";
 import { STAGE_KIND_LABELS, type StageKind } from "@/lib/lines/stages";
 import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
-import { CureCheckPanel } from "./cure-check-panel";
+import { browserOnly } from "@/components/ui/browser-only";
 import { LineTimelineChart } from "./line-timeline";
-import { draft, money, parse, show, unitOf } from "./unit-draft";
+import { dims, draft, money, parse, show, unitOf } from "./unit-draft";
+
+// The cure check is a tool below the line's facts; its code loads after the page has hydrated,
+// which keeps it out of the page's first load.
+const CureCheckPanel = browserOnly(
+  () => import("./cure-check-panel").then((m) => m.CureCheckPanel),
+  <p role="status" className="card text-sm text-ink-soft">Loading the cure check…</p>,
+);
+
+// Archiving is a manager's rare step at the foot of the page: its code loads on its own.
+const ArchiveLine = browserOnly(() => import("./archive-line").then((m) => m.ArchiveLine), null);
 
 interface Props {
   id: number;
@@ -220,48 +228,4 @@ function SafetyNote({ kinds }: { kinds: StageKind[] }) {
       <p className="mt-2 text-ink-soft">These are reminders, not a procedure: local codes, the plant&apos;s own procedures and licensed practice come first.</p>
     </aside>
   );
-}
-
-function ArchiveLine({ line }: { line: LineView }) {
-  const router = useRouter();
-  const [confirming, setConfirming] = useState(false);
-  const [refusal, setRefusal] = useState<{ message: string; usedBy: UsageRef[] } | null>(null);
-  return (
-    <section className="card" aria-labelledby="archive-line-h">
-      <h2 id="archive-line-h">Archive</h2>
-      <p className="text-sm text-ink-soft">An archived line leaves the list and cannot be picked for new runs; its data stays.</p>
-      {confirming ? (
-        <div className="mt-2 flex gap-2">
-          <button
-            className="btn-danger"
-            onClick={async () => {
-              setConfirming(false);
-              const res = await fetch(`/api/lines/${line.id}`, { method: "DELETE", headers: { accept: "application/json" } });
-              if (res.ok) return router.push("/lines");
-              const body = (await res.json().catch(() => null)) as { error?: { message?: string; usedBy?: UsageRef[] } } | null;
-              setRefusal({ message: body?.error?.message ?? `Not archived (${res.status}).`, usedBy: body?.error?.usedBy ?? [] });
-            }}
-          >
-            Yes, archive {line.name}
-          </button>
-          <button className="btn-quiet" onClick={() => setConfirming(false)}>Keep it</button>
-        </div>
-      ) : (
-        <button className="btn-quiet mt-2" onClick={() => setConfirming(true)}>Archive…</button>
-      )}
-      {refusal && (
-        <div role="alert" className="mt-2 text-sm text-oxide">
-          <p>{refusal.message}</p>
-          <ul className="ml-5 list-disc">
-            {refusal.usedBy.map((u) => <li key={`${u.kind}-${u.id}`}>{u.label}</li>)}
-          </ul>
-        </div>
-      )}
-    </section>
-  );
-}
-
-export function dims(w: { widthMm: number; heightMm: number; depthMm: number }, sys: UnitSystem): string {
-  const f = (v: number) => show("lengthMm", v, sys, 4).split(" ")[0];
-  return `${f(w.widthMm)} × ${f(w.heightMm)} × ${f(w.depthMm)} ${unitOf("lengthMm", sys)}`;
 }

@@ -5,8 +5,8 @@ import useSWR from "swr";
 import type { LinesList } from "@/app/api/lines/route";
 import type { LineView } from "@/lib/server/lines";
 import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
-import { money, show } from "./unit-draft";
-import { dims } from "./line-detail";
+// dims comes from unit-draft, not line-detail: importing the detail view put it in this page's first load.
+import { dims, money, show } from "./unit-draft";
 
 /** Every finishing line as a card: kind, speed or cycle data, its ovens, running cost. */
 export function LinesListView({ unitSystem: sys, currency, canEdit }: { unitSystem: UnitSystem; currency: string; canEdit: boolean }) {

@@ -83,3 +83,9 @@ export function parsePlain(text: string): number | undefined {
 export function money(value: number, currency: string): string {
   return new Intl.NumberFormat("en-US", { style: "currency", currency, maximumFractionDigits: 2 }).format(value);
 }
+
+/** "1,200 × 1,800 × 600 mm": a window or oven interior, width × height × depth. */
+export function dims(w: { widthMm: number; heightMm: number; depthMm: number }, sys: UnitSystem): string {
+  const f = (v: number) => show("lengthMm", v, sys, 4).split(" ")[0];
+  return `${f(w.widthMm)} × ${f(w.heightMm)} × ${f(w.depthMm)} ${unitOf("lengthMm", sys)}`;
+}

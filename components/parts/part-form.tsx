@@ -12,9 +12,9 @@ import { TextField } from "@/components/ui/text-field";
 import { FetchError, sendJson } from "@/lib/fetcher";
 import type { MeshView } from "@/lib/server/meshes";
 import type { PartView, TemplateInfo } from "@/lib/server/parts";
-import { DIMENSION_NAME, type AreaOrigin, type PartMaterial } from "@/lib/validation/parts";
+import { DIMENSION_NAME, type AreaOrigin, type PartMaterial } from "@/lib/parts/part-fields";
 import { MASS_ORIGIN_LABELS, MATERIAL_LABELS } from "./part-labels";
-import { MeshUpload } from "./mesh-upload";
+import { browserOnly } from "@/components/ui/browser-only";
 import {
   convertText,
   densityFrom,
@@ -31,6 +31,13 @@ import {
   showVolume,
   type UnitSystem,
 } from "./part-units";
+
+// The STL upload (and its 3D preview) loads in the browser after the form: it stays out of the
+// form's first load.
+const MeshUpload = browserOnly(
+  () => import("./mesh-upload").then((m) => m.MeshUpload),
+  <p role="status" className="text-sm text-ink-soft">Loading the STL upload…</p>,
+);
 
 type Densities = Record<Exclude<PartMaterial, "other">, number>;
 

@@ -1,5 +1,5 @@
 // Plain words for the catalogue's coded values (kept free of zod so the list page stays light).
-import type { AreaOrigin, MassOrigin, PartMaterial } from "@/lib/validation/parts";
+import type { AreaOrigin, MassOrigin, PartMaterial } from "@/lib/parts/part-fields";
 
 export const MATERIAL_LABELS: Readonly<Record<PartMaterial, string>> = {
   steel: "Steel",

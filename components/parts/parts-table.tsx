@@ -5,107 +5,59 @@
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import useSWR from "swr";
-import {
-  flexRender,
-  getCoreRowModel,
-  getFilteredRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type ColumnDef,
-  type FilterFn,
-  type SortingState,
-} from "@tanstack/react-table";
+import { SortHeader, sortRows, type SortState } from "@/components/ui/sort-header";
 import type { PartsList } from "@/app/api/parts/route";
 import type { PartView } from "@/lib/server/parts";
-import type { AreaOrigin, PartMaterial } from "@/lib/validation/parts";
+import type { AreaOrigin, PartMaterial } from "@/lib/parts/part-fields";
 import { AREA_ORIGIN_LABELS, MATERIAL_LABELS } from "./part-labels";
 import { showArea, showBox, showMass, type UnitSystem } from "./part-units";
 
-const search: FilterFn<PartView> = (row, _column, value: string) => {
-  const needle = value.trim().toLowerCase();
+type Column = "number" | "name" | "customer" | "material" | "coatedArea" | "mass" | "box" | "origin";
+
+/** Search over number, name, customer and notes. */
+function matches(p: PartView, query: string): boolean {
+  const needle = query.trim().toLowerCase();
   if (!needle) return true;
-  const p = row.original;
   return [p.number, p.name, p.customer, p.notes].some((s) => s.toLowerCase().includes(needle));
-};
+}
+
+function sortValue(p: PartView, column: Column): string | number {
+  switch (column) {
+    case "material":
+      return MATERIAL_LABELS[p.material];
+    case "coatedArea":
+      return p.coatedAreaM2;
+    case "mass":
+      return p.massKg;
+    case "box":
+      return Math.max(p.lengthMm, p.widthMm, p.heightMm);
+    case "origin":
+      return AREA_ORIGIN_LABELS[p.areaOrigin];
+    default:
+      return p[column];
+  }
+}
 
 export function PartsTable({ unitSystem, canEdit }: { unitSystem: UnitSystem; canEdit: boolean }) {
   const [q, setQ] = useState("");
   const [material, setMaterial] = useState<"" | PartMaterial>("");
   const [origin, setOrigin] = useState<"" | AreaOrigin>("");
   const [archived, setArchived] = useState(false);
-  const [sorting, setSorting] = useState<SortingState>([{ id: "number", desc: false }]);
+  const [sort, setSort] = useState<SortState<Column>>({ key: "number", desc: false });
   const { data, error, isLoading } = useSWR<PartsList>(archived ? "/api/parts?archived=1" : "/api/parts");
 
-  const rows = useMemo(
-    () => (data?.parts ?? []).filter((p) => (!material || p.material === material) && (!origin || p.areaOrigin === origin)),
-    [data, material, origin],
+  const shown = useMemo(
+    () =>
+      sortRows(
+        (data?.parts ?? []).filter((p) => (!material || p.material === material) && (!origin || p.areaOrigin === origin) && matches(p, q)),
+        sort,
+        sortValue,
+      ),
+    [data, material, origin, q, sort],
   );
-
-  const columns = useMemo<ColumnDef<PartView>[]>(
-    () => [
-      {
-        id: "number",
-        accessorKey: "number",
-        header: "Number",
-        cell: ({ row }) => (
-          <span className="whitespace-nowrap font-medium">
-            <Link className="text-phosphate-dark underline-offset-2 hover:underline" href={`/parts/${row.original.id}`}>
-              {row.original.number}
-            </Link>
-            {row.original.archived && <span className="ml-2 text-xs font-normal text-ink-faint">archived</span>}
-          </span>
-        ),
-      },
-      { id: "name", accessorKey: "name", header: "Name" },
-      { id: "customer", accessorKey: "customer", header: "Customer", cell: ({ getValue }) => (getValue<string>() || "—") },
-      { id: "material", accessorFn: (p) => MATERIAL_LABELS[p.material], header: "Material" },
-      {
-        id: "coatedArea",
-        accessorKey: "coatedAreaM2",
-        header: "Coated area",
-        sortingFn: "basic",
-        cell: ({ row }) => (
-          <span className="num whitespace-nowrap">
-            {showArea(row.original.coatedAreaM2, unitSystem)}
-            {row.original.insideAreaM2 > 0 && (
-              <span className="block text-xs text-ink-soft">+ {showArea(row.original.insideAreaM2, unitSystem, 3)} inside</span>
-            )}
-          </span>
-        ),
-      },
-      {
-        id: "mass",
-        accessorKey: "massKg",
-        header: "Mass",
-        sortingFn: "basic",
-        cell: ({ row }) => <span className="num whitespace-nowrap">{showMass(row.original.massKg, unitSystem, 3)}</span>,
-      },
-      {
-        id: "box",
-        accessorFn: (p) => Math.max(p.lengthMm, p.widthMm, p.heightMm),
-        header: "Size (L × W × H)",
-        sortingFn: "basic",
-        cell: ({ row }) => (
-          <span className="num whitespace-nowrap">{showBox(row.original.lengthMm, row.original.widthMm, row.original.heightMm, unitSystem)}</span>
-        ),
-      },
-      { id: "origin", accessorFn: (p) => AREA_ORIGIN_LABELS[p.areaOrigin], header: "Area from" },
-    ],
-    [unitSystem],
+  const header = (column: Column, label: string, numeric = false) => (
+    <SortHeader label={label} column={column} sort={sort} onSort={setSort} numeric={numeric} />
   );
-
-  const table = useReactTable({
-    data: rows,
-    columns,
-    state: { sorting, globalFilter: q },
-    onSortingChange: setSorting,
-    onGlobalFilterChange: setQ,
-    globalFilterFn: search,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-    getFilteredRowModel: getFilteredRowModel(),
-  });
-  const shown = table.getRowModel().rows;
 
   return (
     <div className="space-y-4">
@@ -160,28 +112,44 @@ export function PartsTable({ unitSystem, canEdit }: { unitSystem: UnitSystem; ca
         ) : (
           <table className="w-full text-left text-sm" data-testid="parts-table">
             <thead>
-              {table.getHeaderGroups().map((hg) => (
-                <tr key={hg.id} className="border-b border-plate-line">
-                  {hg.headers.map((h) => {
-                    const sorted = h.column.getIsSorted();
-                    return (
-                      <th key={h.id} scope="col" className="py-2 pr-3 font-medium" aria-sort={sorted ? (sorted === "desc" ? "descending" : "ascending") : undefined}>
-                        <button type="button" className="flex items-center gap-1" onClick={h.column.getToggleSortingHandler()}>
-                          {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden>{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
-                        </button>
-                      </th>
-                    );
-                  })}
-                </tr>
-              ))}
+              <tr className="border-b border-plate-line">
+                {header("number", "Number")}
+                {header("name", "Name")}
+                {header("customer", "Customer")}
+                {header("material", "Material")}
+                {header("coatedArea", "Coated area", true)}
+                {header("mass", "Mass", true)}
+                {header("box", "Size (L × W × H)", true)}
+                {header("origin", "Area from")}
+              </tr>
             </thead>
             <tbody>
-              {shown.map((row) => (
-                <tr key={row.id} className="border-b border-plate-line/60 align-top" data-number={row.original.number}>
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="py-2 pr-3">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
-                  ))}
+              {shown.map((p) => (
+                <tr key={p.id} className="border-b border-plate-line/60 align-top" data-number={p.number}>
+                  <td className="py-2 pr-3">
+                    <span className="whitespace-nowrap font-medium">
+                      <Link className="text-phosphate-dark underline-offset-2 hover:underline" href={`/parts/${p.id}`}>
+                        {p.number}
+                      </Link>
+                      {p.archived && <span className="ml-2 text-xs font-normal text-ink-faint">archived</span>}
+                    </span>
+                  </td>
+                  <td className="py-2 pr-3">{p.name}</td>
+                  <td className="py-2 pr-3">{p.customer || "—"}</td>
+                  <td className="py-2 pr-3">{MATERIAL_LABELS[p.material]}</td>
+                  <td className="py-2 pr-3">
+                    <span className="num whitespace-nowrap">
+                      {showArea(p.coatedAreaM2, unitSystem)}
+                      {p.insideAreaM2 > 0 && <span className="block text-xs text-ink-soft">+ {showArea(p.insideAreaM2, unitSystem, 3)} inside</span>}
+                    </span>
+                  </td>
+                  <td className="py-2 pr-3">
+                    <span className="num whitespace-nowrap">{showMass(p.massKg, unitSystem, 3)}</span>
+                  </td>
+                  <td className="py-2 pr-3">
+                    <span className="num whitespace-nowrap">{showBox(p.lengthMm, p.widthMm, p.heightMm, unitSystem)}</span>
+                  </td>
+                  <td className="py-2 pr-3">{AREA_ORIGIN_LABELS[p.areaOrigin]}</td>
                 </tr>
               ))}
             </tbody>

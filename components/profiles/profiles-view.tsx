@@ -5,8 +5,14 @@ import useSWR from "swr";
 import type { ProfilesList } from "@/app/api/profiles/route";
 import type { ProfileSummary } from "@/lib/server/profiles";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { ImportWizard } from "./import-wizard";
+import { browserOnly } from "@/components/ui/browser-only";
 import { durationText, lengthText } from "./profile-units";
+
+// The wizard loads when someone starts an import: it stays out of the list's first load.
+const ImportWizard = browserOnly(
+  () => import("./import-wizard").then((m) => m.ImportWizard),
+  <p role="status" className="card text-sm text-ink-soft">Loading the import wizard…</p>,
+);
 
 /** Every measured profile with its verdicts at a glance, and the import wizard. */
 export function ProfilesView({ unitSystem: sys, canImport }: { unitSystem: UnitSystem; canImport: boolean }) {

@@ -8,16 +8,15 @@ import useSWR from "swr";
 import { TextField } from "@/components/ui/text-field";
 import { RackViewLazy } from "@/components/three/rack-view-lazy";
 import { FetchError, sendJson } from "@/lib/fetcher";
-import { formatQuantity, unitLabel, type QuantityKind, type UnitSystem } from "@/lib/coating-math/display-units";
-import { allowedOrientations } from "@/lib/rack/orientations";
+import { formatQuantity, type QuantityKind, type UnitSystem } from "@/lib/coating-math/display-units";
+import { codeOfOrientation, codeWords, distinctCodes, orientationFromCode, type OrientationCode } from "@/lib/rack/orientation-code";
 import type { RackPlanResult } from "@/app/api/rack/plan/route";
+import type { SavedRackPlanSummary } from "@/app/api/rack/plans/route";
 import type { RackPlanRequest } from "@/lib/validation/rack";
 import { convertText, fieldText, metricFrom, withUnit } from "./form-units";
 import { lineOptions, type LineOption } from "./line-options";
-import { PerLine } from "./per-line";
-import { orientationWords, RackPlanList } from "./rack-plan-list";
-import { reasonText } from "./reason-text";
-import { CataloguePartPicker } from "@/components/parts/catalogue-part-picker";
+import { CataloguePartPickerLazy, PerLineLazy, PlanResultLazy, RackPlanListLazy, SavedPlanPanelLazy, SavedPlansListLazy } from "./lazy-sections";
+import type { PlanSettings } from "./saved-plan-panel";
 import type { PartView } from "@/lib/server/parts";
 
 const FIELDS = {
@@ -62,8 +61,8 @@ const API_FIELD: Record<string, FieldName | "orientation"> = {
   orientation: "orientation",
 };
 
-const orientationKey = (o: { alongWidthMm: number; alongHeightMm: number; alongDepthMm: number }) =>
-  `${o.alongWidthMm}|${o.alongHeightMm}|${o.alongDepthMm}`;
+/** Form values within display rounding (4 significant figures) of the stored ones. */
+const near = (a: number | undefined, b: number) => a !== undefined && Math.abs(a - b) <= 1e-3 * Math.max(1, Math.abs(b));
 
 function useDebounced<T>(value: T, ms: number): T {
   const [shown, setShown] = useState(value);
@@ -84,7 +83,16 @@ async function planFetcher([url, body]: [string, string]): Promise<Planned> {
   return { input, plan: await sendJson<RackPlanResult>(url, "POST", input) };
 }
 
-export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSystem; shiftHours: number }) {
+interface PlannerProps {
+  unitSystem: UnitSystem;
+  shiftHours: number;
+  /** engineers, supervisors and admins save plans; everyone else reads them */
+  canSave: boolean;
+  /** ?line= in the address: the line to take the window from once lines load */
+  initialLineId: number | null;
+}
+
+export function RackingPlanner({ unitSystem, shiftHours, canSave, initialLineId }: PlannerProps) {
   const [system, setSystem] = useState(unitSystem);
   const [values, setValues] = useState<Values>(() => {
     const v = {} as Values;
@@ -92,12 +100,16 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
     return v;
   });
   const [mode, setMode] = useState<"any" | "upright">("upright");
-  const [forced, setForced] = useState("");
+  const [forced, setForced] = useState<OrientationCode | "">("");
   const [line, setLine] = useState<LineOption | null>(null);
+  const [catalogPart, setCatalogPart] = useState<Pick<PartView, "id" | "number" | "name" | "lengthMm" | "widthMm" | "heightMm" | "massKg"> | null>(null);
+  // Field errors from the last save of a plan (the server validates and plans).
+  const [saveErrors, setSaveErrors] = useState<Record<string, string>>({});
   // A part taken from the catalogue: its box, and its mesh once loaded (drawn while the box matches).
   const [picked, setPicked] = useState<{ boxMm: [number, number, number]; mesh: Float32Array | null } | null>(null);
 
   function pickPart(part: PartView | null) {
+    setCatalogPart(part);
     if (!part) return setPicked(null);
     setPicked({ boxMm: [part.lengthMm, part.widthMm, part.heightMm], mesh: null });
     setValues((v) => ({
@@ -119,7 +131,10 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
     });
   }
 
-  const set = (f: FieldName) => (text: string) => setValues((v) => ({ ...v, [f]: text }));
+  const set = (f: FieldName) => (text: string) => {
+    setValues((v) => ({ ...v, [f]: text }));
+    if (f === "clearanceMm") setSaveErrors({});
+  };
 
   // Local checks first (a number, above zero); the API checks the rest and names the field.
   const local = useMemo(() => {
@@ -142,8 +157,10 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
     const { lengthMm, widthMm, heightMm } = local.metric;
     return lengthMm && widthMm && heightMm ? { lengthMm, widthMm, heightMm } : null;
   }, [local.metric]);
-  const orientationChoices = useMemo(() => (partBox ? allowedOrientations(partBox, mode) : []), [partBox, mode]);
-  const forcedOrientation = orientationChoices.find((o) => orientationKey(o) === forced);
+  const orientationChoices = useMemo(() => (partBox ? distinctCodes(partBox, mode) : []), [partBox, mode]);
+  // A code naming the same orientation as an earlier one (two equal sides) stands for it.
+  const forcedCode = partBox && forced ? codeOfOrientation(partBox, orientationFromCode(partBox, forced)) : null;
+  const forcedOrientation = partBox && forcedCode && orientationChoices.includes(forcedCode) ? orientationFromCode(partBox, forcedCode) : undefined;
 
   const body = useMemo(() => {
     if (Object.keys(local.errors).length > 0) return null;
@@ -163,10 +180,22 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
     keepPreviousData: true,
     shouldRetryOnError: false,
   });
+  // With an orientation chosen by hand, the planner's best for comparison.
+  const bestBody = useMemo(() => {
+    if (!debounced || !forcedOrientation) return null;
+    const { orientation: _o, ...rest } = JSON.parse(debounced) as RackPlanRequest;
+    return JSON.stringify(rest);
+  }, [debounced, forcedOrientation]);
+  const { data: best } = useSWR<Planned, FetchError>(bestBody ? ["/api/rack/plan", bestBody] : null, planFetcher, { shouldRetryOnError: false });
 
   // Another part of the product serves /api/lines; when it is missing or fails, no picker.
   const { data: linesBody } = useSWR<unknown>("/api/lines", { shouldRetryOnError: false });
   const lines = lineOptions(linesBody);
+  const [lineFromAddress, setLineFromAddress] = useState(initialLineId);
+  if (lineFromAddress !== null && lines.length > 0) {
+    setLineFromAddress(null);
+    pickLine(String(lineFromAddress));
+  }
 
   const apiErrors: Partial<Record<FieldName | "orientation", string>> = {};
   let apiMessage: string | null = null;
@@ -177,6 +206,8 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
     }
     apiMessage = error.message;
   }
+  if (saveErrors.clearanceMm) apiErrors.clearanceMm ??= saveErrors.clearanceMm;
+  if (saveErrors.orientationOverride) apiErrors.orientation ??= saveErrors.orientationOverride;
   const fieldError = (f: FieldName) => local.errors[f] ?? apiErrors[f];
 
   const field = (f: FieldName, label: string, hint?: string) => (
@@ -206,7 +237,46 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
 
   const shown = !error && data ? data : null;
   const stale = shown !== null && (debounced !== body || isValidating || JSON.stringify(shown.input) !== debounced);
-  const kg = (v: number) => formatQuantity("massKg", v, unitSystem, 4);
+  const bestShown = best && bestBody && JSON.stringify(best.input) === bestBody ? best.plan : null;
+
+  // The saved plan panel: the choices as the API takes them, and whether the sizes are the stored ones.
+  const settings: PlanSettings | null =
+    Object.keys(local.errors).length > 0
+      ? null
+      : { clearanceMm: local.metric.clearanceMm, orientations: mode, orientationOverride: forcedOrientation && forcedCode ? forcedCode : null };
+  const m = local.metric;
+  const matches =
+    catalogPart !== null &&
+    line !== null &&
+    near(m.lengthMm, catalogPart.lengthMm) &&
+    near(m.widthMm, catalogPart.widthMm) &&
+    near(m.heightMm, catalogPart.heightMm) &&
+    near(m.massKg, catalogPart.massKg) &&
+    near(m.carrierWidthMm, line.windowMm.widthMm) &&
+    near(m.carrierHeightMm, line.windowMm.heightMm) &&
+    near(m.carrierDepthMm, line.windowMm.depthMm) &&
+    near(m.maxLoadKg, line.maxLoadKg);
+
+  function useStoredSizes() {
+    setValues((v) => ({
+      ...v,
+      ...(catalogPart
+        ? {
+            lengthMm: fieldText("lengthMm", catalogPart.lengthMm, unitSystem),
+            widthMm: fieldText("lengthMm", catalogPart.widthMm, unitSystem),
+            heightMm: fieldText("lengthMm", catalogPart.heightMm, unitSystem),
+            massKg: fieldText("massKg", catalogPart.massKg, unitSystem),
+          }
+        : {}),
+    }));
+    if (line) pickLine(String(line.id));
+  }
+
+  function loadSaved(plan: SavedRackPlanSummary) {
+    setMode(plan.orientations);
+    setForced(plan.orientationOverride ?? "");
+    setValues((v) => ({ ...v, clearanceMm: fieldText("lengthMm", plan.clearanceMm, unitSystem) }));
+  }
   const len = (mm: number) => formatQuantity("lengthMm", mm, unitSystem, 4);
 
   return (
@@ -215,7 +285,7 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
         <form className="no-print space-y-4" onSubmit={(e) => e.preventDefault()} aria-label="Racking input" noValidate>
           <fieldset className="card space-y-3">
             <legend className="px-1 font-semibold">Part (its bounding box)</legend>
-            <CataloguePartPicker onPick={pickPart} onMesh={(mesh) => setPicked((p) => (p ? { ...p, mesh } : p))} />
+            <CataloguePartPickerLazy onPick={pickPart} onMesh={(mesh) => setPicked((p) => (p ? { ...p, mesh } : p))} />
             <div className="grid grid-cols-2 gap-3">
               {field("lengthMm", "Part length")}
               {field("widthMm", "Part width")}
@@ -263,20 +333,37 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
               <select
                 id="forced-orientation"
                 className="field"
-                value={forcedOrientation ? forced : ""}
-                onChange={(e) => setForced(e.target.value)}
+                value={forcedOrientation && forcedCode ? forcedCode : ""}
+                onChange={(e) => {
+                  setForced(e.target.value as OrientationCode | "");
+                  setSaveErrors({});
+                }}
                 disabled={!partBox}
                 aria-invalid={apiErrors.orientation ? true : undefined}
+                aria-describedby={apiErrors.orientation ? "forced-orientation-err" : "forced-orientation-hint"}
               >
-                <option value="">Let the planner choose</option>
+                <option value="">Best found (the planner chooses)</option>
                 {partBox &&
-                  orientationChoices.map((o) => (
-                    <option key={orientationKey(o)} value={orientationKey(o)}>
-                      {orientationWords({ ...partBox, massKg: 1 }, o)} ({[o.alongWidthMm, o.alongHeightMm, o.alongDepthMm].map(len).join(" × ")})
-                    </option>
-                  ))}
+                  orientationChoices.map((code) => {
+                    const o = orientationFromCode(partBox, code);
+                    return (
+                      <option key={code} value={code}>
+                        By hand: {codeWords(code)} ({[o.alongWidthMm, o.alongHeightMm, o.alongDepthMm].map(len).join(" × ")})
+                      </option>
+                    );
+                  })}
               </select>
-              {apiErrors.orientation && <p className="field-error">{apiErrors.orientation}</p>}
+              {apiErrors.orientation ? (
+                <p id="forced-orientation-err" className="field-error">{apiErrors.orientation}</p>
+              ) : (
+                <p id="forced-orientation-hint" className="mt-1 text-xs text-ink-faint" data-testid="orientation-count" aria-live="polite">
+                  {!shown
+                    ? "Choose one to count that way only (no mixed blocks)."
+                    : forcedOrientation
+                      ? `${shown.plan.count} this way${bestShown ? `; best found ${bestShown.count}` : ""}.`
+                      : `${shown.plan.count} with the planner's best; choose one to count that way only.`}
+                </p>
+              )}
             </div>
           </fieldset>
         </form>
@@ -296,33 +383,21 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
             ) : !shown ? (
               <p className="mt-1 text-sm text-ink-faint" role="status">Planning…</p>
             ) : (
-              <div className={stale ? "opacity-70" : undefined}>
-                <p className="mt-1 flex flex-wrap items-baseline gap-3">
-                  <span className="num text-4xl font-semibold" data-testid="plan-count">
-                    {shown.plan.count}
-                  </span>
-                  <span className={`rounded px-2 py-0.5 text-sm ${shown.plan.limitedBy === "load" ? "bg-caution-light text-caution" : "bg-phosphate-light text-phosphate-dark"}`}>
-                    limited by {shown.plan.limitedBy}
-                  </span>
-                  <span className="num text-sm text-ink-soft">
-                    {kg(shown.plan.count * shown.input.part.massKg)} of {kg(shown.input.carrier.maxLoadKg)}
-                  </span>
-                </p>
-                <p className="mt-2 text-sm" data-testid="plan-reason">
-                  {reasonText(shown.plan, shown.input, unitSystem)}
-                </p>
-                {shown.plan.blocks.length > 0 && (
-                  <ul className="mt-2 space-y-0.5 text-sm">
-                    {shown.plan.blocks.map((b, i) => (
-                      <li key={i}>
-                        <span className="num">{b.grid.join(" × ")}</span> ({b.count} parts): {orientationWords(shown.input.part, b.orientation)}
-                      </li>
-                    ))}
-                  </ul>
-                )}
-              </div>
+              <PlanResultLazy plan={shown.plan} input={shown.input} best={bestShown} stale={stale} unitSystem={unitSystem} />
             )}
           </section>
+          <SavedPlanPanelLazy
+            part={catalogPart}
+            line={line}
+            matches={matches}
+            onUseStored={useStoredSizes}
+            settings={settings}
+            previewCount={shown && !stale ? shown.plan.count : null}
+            canSave={canSave}
+            unitSystem={unitSystem}
+            onLoad={loadSaved}
+            onFieldErrors={setSaveErrors}
+          />
           {shown && (
             <RackViewLazy
               windowMm={shown.input.carrier}
@@ -342,22 +417,14 @@ export function RackingPlanner({ unitSystem, shiftHours }: { unitSystem: UnitSys
         </div>
       </div>
 
-      {shown && <RackPlanList input={shown.input} plan={shown.plan} unitSystem={unitSystem} />}
+      {shown && <RackPlanListLazy input={shown.input} plan={shown.plan} unitSystem={unitSystem} />}
+
+      <SavedPlansListLazy unitSystem={unitSystem} />
 
       <div className="no-print">
-        <PerLine partsPerCarrier={shown?.plan.count ?? 0} unitSystem={unitSystem} shiftHours={shiftHours} line={line} />
+        <PerLineLazy partsPerCarrier={shown?.plan.count ?? 0} unitSystem={unitSystem} shiftHours={shiftHours} line={line} />
       </div>
 
-      <aside className="rounded-lg border border-caution-edge bg-caution-light p-4 text-sm text-ink" role="note" aria-labelledby="rack-safety-h">
-        <h2 id="rack-safety-h" className="text-base">Safety</h2>
-        <p className="mt-1">
-          The load limit is the carrier&apos;s and its hooks&apos; rated load: never hang more, and remember that hooks and racks
-          gain weight as cured coating builds up on them. Parts leave a cure oven hot (around{" "}
-          {formatQuantity("temperatureC", 200, unitSystem)}) and stay hot well after: unload with heat-resistant gloves and only
-          after the cool-down your plant sets. Follow your plant&apos;s own procedures and local codes.
-        </p>
-        <p className="mt-1 text-xs text-ink-soft">Sizes are in {unitLabel("lengthMm", unitSystem)}, masses in {unitLabel("massKg", unitSystem)}.</p>
-      </aside>
     </div>
   );
 }

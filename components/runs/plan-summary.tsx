@@ -25,7 +25,11 @@ export function PlanFacts({ plan, unitSystem: sys, currency }: Props) {
         <dt className="text-ink-soft">Parts per {word}</dt>
         <dd className="num text-lg font-semibold" data-testid="parts-per-carrier">{plan.racking.partsPerCarrier}</dd>
         <dd className="text-xs text-ink-faint">
-          {plan.racking.overridden ? `set by hand (planner: ${plan.racking.plannedPerCarrier})` : `limited by ${plan.racking.limitedBy}`}
+          {plan.racking.overridden
+            ? `set by hand (planner: ${plan.racking.plannedPerCarrier})`
+            : plan.racking.savedPlanId !== null
+              ? `from saved racking plan ${plan.racking.savedPlanId}, limited by ${plan.racking.limitedBy}`
+              : `limited by ${plan.racking.limitedBy}`}
         </dd>
       </div>
       <div>

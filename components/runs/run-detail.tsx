@@ -14,8 +14,14 @@ import type { RunOne } from "@/app/api/runs/[id]/route";
 import type { RunPartView } from "@/lib/server/runs";
 import { dayLabel } from "./format";
 import { CoatsTable, PlanFacts, Warnings } from "./plan-summary";
-import { RunForm } from "./run-form";
 import { StatusBadge } from "./status-badge";
+import { browserOnly } from "@/components/ui/browser-only";
+
+// The edit form loads when someone opens it: it stays out of the run page's first load.
+const RunForm = browserOnly(
+  () => import("./run-form").then((m) => m.RunForm),
+  <p role="status" className="text-sm text-ink-soft">Loading the form…</p>,
+);
 
 interface Props {
   id: number;

@@ -10,8 +10,14 @@ import type { LinesList } from "@/app/api/lines/route";
 import type { RunsList } from "@/app/api/runs/route";
 import type { RunPartView } from "@/lib/server/runs";
 import { addDays, dayLabel, duration, localToday, money, q } from "./format";
-import { RunForm } from "./run-form";
+import { browserOnly } from "@/components/ui/browser-only";
 import { StatusBadge, Swatch } from "./status-badge";
+
+// The planning form loads when someone opens it: it stays out of the list's first load.
+const RunForm = browserOnly(
+  () => import("./run-form").then((m) => m.RunForm),
+  <p role="status" className="text-sm text-ink-soft">Loading the form…</p>,
+);
 
 interface Props {
   parts: RunPartView[];

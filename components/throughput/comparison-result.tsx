@@ -1,15 +1,15 @@
 "use client";
 // The answer of a comparison: what limits each column, the side-by-side table and the charts.
 
-import dynamic from "next/dynamic";
+import { browserOnly } from "@/components/ui/browser-only";
 import type { ThroughputComparison } from "@/lib/server/throughput";
 import { ComparisonTable } from "./comparison-table";
 import { show, sig, type UnitTable } from "./shown-units";
 
-const ThroughputChart = dynamic(() => import("./throughput-chart").then((m) => m.ThroughputChart), {
-  ssr: false,
-  loading: () => <p role="status" className="text-sm text-ink-soft">Drawing the charts…</p>,
-});
+const ThroughputChart = browserOnly(
+  () => import("./throughput-chart").then((m) => m.ThroughputChart),
+  <p role="status" className="text-sm text-ink-soft">Drawing the charts…</p>,
+);
 
 export function ComparisonResult({ result: r, units }: { result: ThroughputComparison; units: UnitTable }) {
   const c = r.coating;

@@ -1,6 +1,6 @@
 "use client";
-// Bar charts of parts per hour and cost per part, one bar per column. Loaded with next/dynamic
-// (ssr: false) so Recharts stays out of the page's first load; only the pieces used are imported.
+// Bar charts of parts per hour and cost per part, one bar per column. Loaded in the browser only
+// (browserOnly) so Recharts stays out of the page's first load; only the pieces used are imported.
 
 import { Bar, BarChart, CartesianGrid, Cell, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { money, sig } from "./shown-units";

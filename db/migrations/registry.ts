@@ -7,7 +7,9 @@ import * as scenarios from "./2026-12-02-scenarios";
 import * as runs from "./2026-12-02-runs";
 import * as profiles from "./2026-12-02-profiles";
 import * as filmChecks from "./2026-12-02-film-checks";
+import * as gaugeUpkeep from "./2026-12-03-gauge-upkeep";
 import * as purchasing from "./2026-12-02-purchasing";
+import * as rackPlans from "./2026-12-03-rack-plans";
 
 /**
  * Kysely's FileMigrationProvider cannot import .ts on Node 20, so migrations are listed here.
@@ -22,7 +24,9 @@ const migrations: Record<string, Migration> = {
   "2026-12-02-runs": runs,
   "2026-12-02-profiles": profiles,
   "2026-12-02-film-checks": filmChecks,
+  "2026-12-03-gauge-upkeep": gaugeUpkeep,
   "2026-12-02-purchasing": purchasing,
+  "2026-12-03-rack-plans": rackPlans,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -66,6 +66,21 @@ export function listGaugeRows(db: Db): Promise<GaugeRow[]> {
   return db.selectFrom("gauges").selectAll().orderBy("name").execute();
 }
 
+/** How many film checks name each gauge (gauges no check names are absent). */
+export async function gaugeUseCounts(db: Db): Promise<Map<number, number>> {
+  const rows = await db
+    .selectFrom("film_checks")
+    .select(["gauge_id", (eb) => eb.fn.countAll<number>().as("n")])
+    .where("gauge_id", "is not", null)
+    .groupBy("gauge_id")
+    .execute();
+  return new Map(rows.map((r) => [r.gauge_id as number, Number(r.n)]));
+}
+
+export async function deleteGauge(db: Db, id: number): Promise<void> {
+  await db.deleteFrom("gauges").where("id", "=", id).execute();
+}
+
 export function findGaugeByName(db: Db, name: string): Promise<GaugeRow | undefined> {
   return db.selectFrom("gauges").selectAll().where("name", "=", name).executeTakeFirst();
 }

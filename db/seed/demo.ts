@@ -5,6 +5,7 @@ import type { Role } from "../schema";
 import { seedCoatingsAndLines } from "./coatings-lines";
 import { seedParts } from "./parts";
 import { seedRuns } from "./runs";
+import { seedRackPlans } from "./rack-plans";
 import { seedScenarios } from "./scenarios";
 import { seedProfiles } from "./profiles";
 import { seedFilmChecks } from "./film-checks";
@@ -54,6 +55,8 @@ export async function seedDemo(db: Db): Promise<boolean> {
       .execute();
     await seedCoatingsAndLines(trx, t);
     await seedParts(trx, t);
+    // after parts and lines; runs read saved plans when they are planned, so the order with runs is free
+    await seedRackPlans(trx, t);
     await seedRuns(trx, t);
     await seedScenarios(trx, t);
     await seedProfiles(trx, t);

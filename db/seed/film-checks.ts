@@ -1,7 +1,8 @@
 import type { Db } from "../index";
 
 /*
- * Demo film records: a gauge with a remembered CSV mapping, and on today's in-progress fender
+ * Demo film records: a gauge with a remembered CSV mapping, a pull-off gauge whose yearly
+ * verification is overdue, and on today's in-progress fender
  * run (BC-2210, Line 1) the e-coat primer's SSPC-PA 2 readings (two areas, all within EC-200's
  * 18–25 µm) and a coverage inspection. The powder coat is left for the operator to measure.
  */
@@ -18,6 +19,10 @@ export async function seedFilmChecks(db: Db, nowS = Math.floor(Date.now() / 1000
     })
     .returning("id")
     .executeTakeFirstOrThrow();
+  await db
+    .insertInto("gauges")
+    .values({ name: "Gauge 2 — pull-off", gauge_type: "type1", serial: "PO-1183", verified_at: nowS - 425 * 86_400, mapping_json: null, created_at: nowS })
+    .execute();
 
   const run = await db
     .selectFrom("runs")
@@ -47,6 +52,9 @@ export async function seedFilmChecks(db: Db, nowS = Math.floor(Date.now() / 1000
     updated_at: nowS - 3600,
   };
   const { id: checkId } = await db.insertInto("film_checks").values(checkValues).returning("id").executeTakeFirstOrThrow();
+  // The log keeps the stored columns of the check, as the film-check service writes them.
+  const { coat_position, rule, spec_min_um, spec_max_um, nominal_um, gauge_id, readings_json, notes } = checkValues;
+  const logged = { coat_position, rule, spec_min_um, spec_max_um, nominal_um, gauge_id, readings_json, notes };
   const testData = { result: "pass", notes: "No bare spots on the inside return." };
   const { id: testId } = await db
     .insertInto("film_tests")
@@ -56,7 +64,7 @@ export async function seedFilmChecks(db: Db, nowS = Math.floor(Date.now() / 1000
   await db
     .insertInto("film_check_log")
     .values([
-      { run_id: run.id, entity: "film_check", entity_id: checkId, action: "create", user_id: operator?.id ?? null, at: nowS - 3600, old_json: null, new_json: checkValues.readings_json },
+      { run_id: run.id, entity: "film_check", entity_id: checkId, action: "create", user_id: operator?.id ?? null, at: nowS - 3600, old_json: null, new_json: JSON.stringify(logged) },
       { run_id: run.id, entity: "film_test", entity_id: testId, action: "create", user_id: operator?.id ?? null, at: nowS - 3500, old_json: null, new_json: JSON.stringify({ kind: "coverage", ...testData }) },
     ])
     .execute();

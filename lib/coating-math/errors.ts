@@ -38,20 +38,25 @@ export function describeRange(range: NumericRange): string {
   return bounds || "a finite number";
 }
 
-/**
- * Throws a DomainError unless `value` is a finite number inside `range`.
- * Returns the value so checks can be written inline.
- */
-export function requireInRange(field: string, value: number, range: NumericRange): number {
-  const ok =
+/** True when `value` is a finite number inside `range`. */
+export function isInRange(value: unknown, range: NumericRange): boolean {
+  return (
     typeof value === "number" &&
     Number.isFinite(value) &&
     (range.gt === undefined || value > range.gt) &&
     (range.gte === undefined || value >= range.gte) &&
     (range.lt === undefined || value < range.lt) &&
     (range.lte === undefined || value <= range.lte) &&
-    (!range.integer || Number.isInteger(value));
-  if (!ok) {
+    (!range.integer || Number.isInteger(value))
+  );
+}
+
+/**
+ * Throws a DomainError unless `value` is a finite number inside `range`.
+ * Returns the value so checks can be written inline.
+ */
+export function requireInRange(field: string, value: number, range: NumericRange): number {
+  if (!isInRange(value, range)) {
     throw new DomainError(field, `${field} must be ${describeRange(range)} (got ${String(value)}).`);
   }
   return value;

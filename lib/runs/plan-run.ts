@@ -111,6 +111,8 @@ export interface PlanRacking {
   orientation?: RackOrientation | null;
   /** parts per carrier set by hand instead of the planner's count */
   partsPerCarrierOverride?: number | null;
+  /** the clearance and orientation above come from this saved racking plan (part × line) */
+  savedPlanId?: number | null;
 }
 
 export interface PlanRunInput {
@@ -196,6 +198,8 @@ export interface RunRacking {
   limitedBy: "space" | "load";
   reason: string;
   overridden: boolean;
+  /** the saved racking plan the count comes from, or null for the live planner / a hand count */
+  savedPlanId: number | null;
   loadKg: number;
   maxLoadKg: number;
   windowMm: { widthMm: number; heightMm: number; depthMm: number };
@@ -280,12 +284,13 @@ function planRacking(input: PlanRunInput, warnings: string[]): RunRacking {
       ...(racking.orientation ? { orientation: racking.orientation } : {}),
     }),
   );
+  const saved = racking.savedPlanId ? ` (with saved racking plan ${racking.savedPlanId})` : "";
   if (plan.spaceCount === 0) {
-    throw new DomainError("lineId", `Part ${part.number} does not fit on ${line.name}'s ${word}: ${plan.reason}`);
+    throw new DomainError("lineId", `Part ${part.number} does not fit on ${line.name}'s ${word}${saved}: ${plan.reason}`);
   }
   const override = racking.partsPerCarrierOverride ?? null;
   if (override === null && plan.count === 0) {
-    throw new DomainError("lineId", `${line.name} cannot carry part ${part.number}: ${plan.reason}`);
+    throw new DomainError("lineId", `${line.name} cannot carry part ${part.number}${saved}: ${plan.reason}`);
   }
   let partsPerCarrier = plan.count;
   if (override !== null) {
@@ -301,13 +306,15 @@ function planRacking(input: PlanRunInput, warnings: string[]): RunRacking {
     }
     partsPerCarrier = override;
   }
+  const savedPlanId = racking.savedPlanId ?? null;
   return {
     partsPerCarrier,
     plannedPerCarrier: plan.count,
     spaceCount: plan.spaceCount,
     limitedBy: plan.limitedBy,
-    reason: plan.reason,
+    reason: savedPlanId !== null ? `From saved racking plan ${savedPlanId}. ${plan.reason}` : plan.reason,
     overridden: override !== null,
+    savedPlanId,
     loadKg: partsPerCarrier * part.massKg,
     maxLoadKg: line.maxLoadKg,
     windowMm: { ...line.windowMm },

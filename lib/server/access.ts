@@ -27,6 +27,10 @@ export const apiAccess: Record<string, Partial<Record<Method, Access>>> = {
   "/api/admin/settings": { GET: ANY, PUT: ["admin"] },
   // Planning is read-only arithmetic on the numbers sent: any signed-in role may ask.
   "/api/rack/plan": { POST: ANY },
+  // Saved racking plans: engineers and supervisors (and admin) save them; every role reads them
+  // (operators print the plan for the line).
+  "/api/rack/plans": { GET: ANY, POST: ["engineer", "supervisor"] },
+  "/api/rack/plans/[id]": { GET: ANY, PUT: ["engineer", "supervisor"], DELETE: ["engineer", "supervisor"] },
   "/api/calc/powder": { POST: ANY },
   "/api/calc/ecoat": { POST: ANY },
   "/api/calc/line": { POST: ANY },
@@ -66,6 +70,8 @@ export const apiAccess: Record<string, Partial<Record<Method, Access>>> = {
   "/api/film-checks/[id]": { GET: ANY, PUT: ["operator", "supervisor"], DELETE: ["operator", "supervisor"] },
   "/api/runs/[id]/tests": { GET: ANY, POST: ["operator", "supervisor"] },
   "/api/gauges": { GET: ANY, POST: ["operator", "supervisor"] },
+  // Gauges: whoever records readings keeps the gauge list (verification dates, mapping, retiring).
+  "/api/gauges/[id]": { GET: ANY, PUT: ["operator", "supervisor"], DELETE: ["operator", "supervisor"] },
   "/api/quality/trend": { GET: ["supervisor", "manager"] },
   // Oven profiles: supervisors and engineers (and admin) import and delete; managers read them and,
   // as they own the lines, may also store a fitted heat-transfer coefficient on an oven.

@@ -14,7 +14,8 @@ import {
 } from "@/db/queries/coatings";
 import type { CurePoint } from "@/lib/coating-math/cure";
 import type { CoatingKind } from "@/lib/lines/stages";
-import type { Chemistry, CoatingInput, LotInput } from "@/lib/validation/coatings";
+import type { Chemistry } from "@/lib/coatings/chemistries";
+import type { CoatingInput, LotInput } from "@/lib/validation/coatings";
 import { ApiError, isUniqueViolation } from "./http";
 import { runsUsingCoating } from "@/db/queries/runs";
 

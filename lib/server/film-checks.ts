@@ -10,11 +10,16 @@ import * as q from "@/db/queries/film-checks";
 import { evaluateFilm, type FilmEvaluation } from "@/lib/coating-math/film";
 import { flattenReadings, fractionInSpec, localizeFilmText } from "@/lib/film-checks/readings";
 import type { CsvMapping } from "@/lib/film-checks/csv-mapping";
+import { describeFilmCheckLog, type LogChange } from "@/lib/film-checks/change-log";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { ApiError } from "./http";
-import { dateToEpoch, epochToDate, nowSeconds } from "./coatings";
+import { PA2_MIN_READINGS_PER_SPOT, PA2_SPOTS_PER_AREA } from "@/lib/coating-math/film";
+import { ApiError, isUniqueViolation } from "./http";
+import { addMonths, dateToEpoch, epochToDate, nowSeconds } from "./coatings";
 import type { SessionUser } from "./session";
-import type { FilmCheckInput, FilmTestInput, GaugeInput } from "@/lib/validation/film-checks";
+import type { FilmCheckInput, FilmTestInput, GaugeInput, GaugeUpdate } from "@/lib/validation/film-checks";
+
+/** Who may open the gauges page (admin always may); changing gauges follows the access table. */
+export const GAUGE_PAGE_ROLES = ["operator", "supervisor", "engineer", "manager"] as const;
 
 export interface CoatSpec {
   coatIndex: number;
@@ -70,6 +75,15 @@ export interface GaugeView {
   serial: string;
   verifiedOn: string | null;
   mapping: CsvMapping | null;
+  /** the plant's verification interval for this gauge */
+  verifyIntervalMonths: number;
+  /** verifiedOn + the interval; null when never verified */
+  verificationDueOn: string | null;
+  /** "overdue" once today is past the due date; "never" when no verification is recorded */
+  verification: "current" | "overdue" | "never";
+  retiredOn: string | null;
+  /** film checks that name this gauge (a gauge in use is retired, not deleted) */
+  checkCount: number;
 }
 
 export interface LogView {
@@ -81,6 +95,26 @@ export interface LogView {
   at: number;
   old: unknown;
   new: unknown;
+  /** in words, film values in the viewer's units */
+  summary: string;
+  /** field: from → to, for edits */
+  changes: LogChange[];
+}
+
+/** SSPC-PA 2 sampling of one coat: what the run's coated surface needs and what is recorded. */
+export interface CoatSampling {
+  coatIndex: number;
+  surfaceAreaM2: number;
+  areaCount: number;
+  spotCount: number;
+  minReadingCount: number;
+  /** areas, spots and readings in this coat's SSPC-PA 2 checks */
+  recordedAreas: number;
+  recordedSpots: number;
+  /** areas with all 5 spots of at least 3 readings */
+  completeAreas: number;
+  /** readings of every check of the coat (either rule) */
+  recordedReadings: number;
 }
 
 export interface RunFilmChecks {
@@ -89,6 +123,7 @@ export interface RunFilmChecks {
   checks: FilmCheckView[];
   tests: FilmTestView[];
   log: LogView[];
+  sampling: { coats: CoatSampling[]; unavailable: string | null };
 }
 
 const mean = (v: readonly number[]) => (v.length ? v.reduce((a, b) => a + b, 0) / v.length : null);
@@ -222,15 +257,94 @@ function testView(row: q.FilmTestWithName): FilmTestView {
   };
 }
 
-function gaugeView(g: q.GaugeRow): GaugeView {
+function gaugeView(g: q.GaugeRow, checkCount: number, today = epochToDate(nowSeconds())): GaugeView {
+  const verifiedOn = g.verified_at === null ? null : epochToDate(g.verified_at);
+  const due = verifiedOn === null ? null : addMonths(verifiedOn, g.verify_interval_months);
   return {
     id: g.id,
     name: g.name,
     gaugeType: g.gauge_type,
     serial: g.serial,
-    verifiedOn: g.verified_at === null ? null : epochToDate(g.verified_at),
+    verifiedOn,
     mapping: g.mapping_json ? (JSON.parse(g.mapping_json) as CsvMapping) : null,
+    verifyIntervalMonths: g.verify_interval_months,
+    verificationDueOn: due,
+    // ISO dates compare as text; due on the day itself is still current.
+    verification: due === null ? "never" : today > due ? "overdue" : "current",
+    retiredOn: g.retired_at === null ? null : epochToDate(g.retired_at),
+    checkCount,
   };
+}
+
+async function gaugeViewById(db: Db, id: number): Promise<GaugeView> {
+  const row = await q.findGauge(db, id);
+  if (!row) throw new ApiError(404, "not_found", "No such gauge.");
+  return gaugeView(row, (await q.gaugeUseCounts(db)).get(id) ?? 0);
+}
+
+/** What the coated surface of each coat needs (the run sheet's SSPC-PA 2 plan) against what is recorded. */
+async function samplingOf(runId: number, checks: FilmCheckView[]): Promise<RunFilmChecks["sampling"]> {
+  // Loaded on demand: the run service reaches this module through the feedback loop.
+  const { getRun } = await import("./runs");
+  let run;
+  try {
+    run = await getRun(runId);
+  } catch (e) {
+    if (e instanceof ApiError) return { coats: [], unavailable: e.message };
+    throw e;
+  }
+  if (!run.plan) {
+    return { coats: [], unavailable: `This run does not plan (${run.planError?.message ?? "its part is missing"}), so its coated surface is not known.` };
+  }
+  const coats = run.plan.coats.map((c): CoatSampling => {
+    let recordedAreas = 0;
+    let recordedSpots = 0;
+    let completeAreas = 0;
+    let recordedReadings = 0;
+    for (const check of checks.filter((x) => x.coatIndex === c.position)) {
+      recordedReadings += check.readingCount;
+      for (const spots of check.areas ?? []) {
+        recordedAreas += 1;
+        recordedSpots += spots.length;
+        if (spots.length >= PA2_SPOTS_PER_AREA && spots.every((r) => r.length >= PA2_MIN_READINGS_PER_SPOT)) completeAreas += 1;
+      }
+    }
+    return {
+      coatIndex: c.position,
+      surfaceAreaM2: c.areaM2,
+      areaCount: c.filmCheck.areaCount,
+      spotCount: c.filmCheck.spotCount,
+      minReadingCount: c.filmCheck.minReadingCount,
+      recordedAreas,
+      recordedSpots,
+      completeAreas,
+      recordedReadings,
+    };
+  });
+  return { coats, unavailable: null };
+}
+
+function logView(
+  l: q.FilmLogRow & { user_name: string | null },
+  coats: CoatSpec[],
+  gaugeNames: Map<number, string>,
+  system: UnitSystem,
+): LogView {
+  const oldV = l.old_json ? (JSON.parse(l.old_json) as unknown) : null;
+  const newV = l.new_json ? (JSON.parse(l.new_json) as unknown) : null;
+  let summary = `${l.action} ${l.entity.replace("_", " ")} ${l.entity_id}`;
+  let changes: LogChange[] = [];
+  if (l.entity === "film_check") {
+    const coatLabel = (i: number) => {
+      const c = coats.find((x) => x.coatIndex === i);
+      return `coat ${i + 1}${c ? ` (${c.coatingCode})` : ""}`;
+    };
+    ({ summary, changes } = describeFilmCheckLog(l.action, oldV, newV, { system, coatLabel, gaugeName: (id) => gaugeNames.get(id) ?? null }));
+  } else if (l.entity === "film_test" && newV && typeof newV === "object") {
+    const { kind, ...data } = newV as { kind: FilmTestView["kind"] } & Record<string, unknown>;
+    summary = `Recorded a test: ${localizeFilmText(testSummary(kind, data), system)}.`;
+  }
+  return { id: l.id, entity: l.entity, entityId: l.entity_id, action: l.action, userName: l.user_name, at: l.at, old: oldV, new: newV, summary, changes };
 }
 
 export async function runFilmChecks(runId: number, user: SessionUser): Promise<RunFilmChecks> {
@@ -240,16 +354,8 @@ export async function runFilmChecks(runId: number, user: SessionUser): Promise<R
   const byIndex = new Map(coats.map((c) => [c.coatIndex, c]));
   const checks = (await q.filmChecksOfRun(db, runId)).map((r) => checkView(r, byIndex.get(r.coat_position), user.unitSystem));
   const tests = (await q.filmTestsOfRun(db, runId)).map(testView);
-  const log = (await q.filmLogOfRun(db, runId)).map((l) => ({
-    id: l.id,
-    entity: l.entity,
-    entityId: l.entity_id,
-    action: l.action,
-    userName: l.user_name,
-    at: l.at,
-    old: l.old_json ? (JSON.parse(l.old_json) as unknown) : null,
-    new: l.new_json ? (JSON.parse(l.new_json) as unknown) : null,
-  }));
+  const gaugeNames = new Map((await q.listGaugeRows(db)).map((g) => [g.id, g.name]));
+  const log = (await q.filmLogOfRun(db, runId)).map((l) => logView(l, coats, gaugeNames, user.unitSystem));
   return {
     run: {
       id: run.id,
@@ -264,11 +370,12 @@ export async function runFilmChecks(runId: number, user: SessionUser): Promise<R
     checks,
     tests,
     log,
+    sampling: await samplingOf(runId, checks),
   };
 }
 
 /** The stored form of an input, checked against the run and judged once so impossible input is 400. */
-async function prepare(db: Db, runId: number, input: FilmCheckInput) {
+async function prepare(db: Db, runId: number, input: FilmCheckInput, currentGaugeId: number | null = null) {
   const coats = await coatSpecs(db, runId);
   const coat = coats.find((c) => c.coatIndex === input.coatIndex);
   if (!coat) {
@@ -280,8 +387,13 @@ async function prepare(db: Db, runId: number, input: FilmCheckInput) {
   const nominalUm = input.rule === "iso19840" ? (input.nominalUm ?? null) : null;
   // Throws a DomainError with the path (areas.0.1) on a short spot or a reversed spec → 400.
   evaluateFilm(evaluationInput(input.rule, specMinUm, specMaxUm, nominalUm, readings));
-  if (input.gaugeId != null && !(await q.findGauge(db, input.gaugeId))) {
-    throw new ApiError(400, "invalid_input", "No such gauge.", { gaugeId: "Choose a gauge from the list." });
+  if (input.gaugeId != null) {
+    const gauge = await q.findGauge(db, input.gaugeId);
+    if (!gauge) throw new ApiError(400, "invalid_input", "No such gauge.", { gaugeId: "Choose a gauge from the list." });
+    // A retired gauge stays on the records that name it, but new readings need a gauge in use.
+    if (gauge.retired_at !== null && gauge.id !== currentGaugeId) {
+      throw new ApiError(400, "invalid_input", `${gauge.name} is retired.`, { gaugeId: `${gauge.name} is retired; choose a gauge in use.` });
+    }
   }
   return {
     coat_position: input.coatIndex,
@@ -341,7 +453,7 @@ export async function updateFilmCheck(id: number, input: FilmCheckInput, user: S
   if (!row) throw new ApiError(404, "not_found", "No such film check.");
   const run = await runOrThrow(db, row.run_id);
   requireWritable(run.status, user);
-  const values = await prepare(db, row.run_id, input);
+  const values = await prepare(db, row.run_id, input, row.gauge_id);
   await db.transaction().execute(async (trx) => {
     await q.updateFilmCheck(trx, id, { ...values, updated_at: nowSeconds() });
     await log(trx, row.run_id, "film_check", id, "update", user, stored(row), values);
@@ -388,8 +500,27 @@ export async function recordTest(runId: number, input: FilmTestInput, user: Sess
 }
 
 export async function listGauges(): Promise<GaugeView[]> {
-  return (await q.listGaugeRows(await getDb())).map(gaugeView);
+  const db = await getDb();
+  const counts = await q.gaugeUseCounts(db);
+  const today = epochToDate(nowSeconds());
+  return (await q.listGaugeRows(db)).map((g) => gaugeView(g, counts.get(g.id) ?? 0, today));
 }
+
+/** A verification date as stored: a real calendar day, not after today. */
+function verifiedAt(date: string | null | undefined, current: number | null): number | null {
+  if (date === undefined) return current;
+  if (date === null) return null;
+  const s = dateToEpoch(date);
+  if (!Number.isFinite(s) || epochToDate(s) !== date) {
+    throw new ApiError(400, "invalid_input", "verifiedOn: That day does not exist.", { verifiedOn: "Enter a real date like 2026-12-03." });
+  }
+  if (s > nowSeconds()) {
+    throw new ApiError(400, "invalid_input", "verifiedOn: The verification date is in the future.", { verifiedOn: "Enter the day the gauge was last verified (today or earlier)." });
+  }
+  return s;
+}
+
+const mappingJson = (m: GaugeInput["mapping"], current: string | null) => (m === undefined ? current : m === null ? null : JSON.stringify(m));
 
 /** Adds a gauge, or updates the one of that name (its type, serial, verification date, CSV mapping). */
 export async function saveGauge(input: GaugeInput): Promise<{ gauge: GaugeView; created: boolean }> {
@@ -399,15 +530,56 @@ export async function saveGauge(input: GaugeInput): Promise<{ gauge: GaugeView; 
     name: input.name,
     gauge_type: input.gaugeType,
     serial: input.serial ?? existing?.serial ?? "",
-    verified_at: input.verifiedOn === undefined ? (existing?.verified_at ?? null) : input.verifiedOn === null ? null : dateToEpoch(input.verifiedOn),
-    mapping_json: input.mapping === undefined ? (existing?.mapping_json ?? null) : input.mapping === null ? null : JSON.stringify(input.mapping),
+    verified_at: verifiedAt(input.verifiedOn, existing?.verified_at ?? null),
+    verify_interval_months: input.verifyIntervalMonths ?? existing?.verify_interval_months ?? 12,
+    mapping_json: mappingJson(input.mapping, existing?.mapping_json ?? null),
   };
   if (existing) {
     await q.updateGauge(db, existing.id, values);
-    return { gauge: gaugeView((await q.findGauge(db, existing.id))!), created: false };
+    return { gauge: await gaugeViewById(db, existing.id), created: false };
   }
   const id = await q.insertGauge(db, { ...values, created_at: nowSeconds() });
-  return { gauge: gaugeView((await q.findGauge(db, id))!), created: true };
+  return { gauge: await gaugeViewById(db, id), created: true };
+}
+
+export async function getGauge(id: number): Promise<GaugeView> {
+  return gaugeViewById(await getDb(), id);
+}
+
+/** Changes the fields sent; `retired` archives the gauge (or brings it back), `mapping: null` forgets the CSV mapping. */
+export async function updateGauge(id: number, input: GaugeUpdate): Promise<GaugeView> {
+  const db = await getDb();
+  const row = await q.findGauge(db, id);
+  if (!row) throw new ApiError(404, "not_found", "No such gauge.");
+  try {
+    await q.updateGauge(db, id, {
+      name: input.name ?? row.name,
+      gauge_type: input.gaugeType ?? row.gauge_type,
+      serial: input.serial ?? row.serial,
+      verified_at: verifiedAt(input.verifiedOn, row.verified_at),
+      verify_interval_months: input.verifyIntervalMonths ?? row.verify_interval_months,
+      mapping_json: mappingJson(input.mapping, row.mapping_json),
+      retired_at: input.retired === undefined ? row.retired_at : input.retired ? (row.retired_at ?? nowSeconds()) : null,
+    });
+  } catch (e) {
+    if (isUniqueViolation(e)) {
+      throw new ApiError(409, "conflict", `A gauge named "${input.name}" exists already.`, { name: "Choose a name no other gauge has." });
+    }
+    throw e;
+  }
+  return gaugeViewById(db, id);
+}
+
+/** Deletes a gauge no film check names; one in use is refused (409) — retire it instead. */
+export async function removeGauge(id: number): Promise<void> {
+  const db = await getDb();
+  const row = await q.findGauge(db, id);
+  if (!row) throw new ApiError(404, "not_found", "No such gauge.");
+  const used = (await q.gaugeUseCounts(db)).get(id) ?? 0;
+  if (used > 0) {
+    throw new ApiError(409, "conflict", `${used} film check${used === 1 ? " names" : "s name"} ${row.name}: retire it instead, so those records keep their gauge.`);
+  }
+  await q.deleteGauge(db, id);
 }
 
 export interface TrendPoint {

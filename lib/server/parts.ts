@@ -23,17 +23,8 @@ import { GeometryError } from "@/lib/geometry/errors";
 import { MM_PER_M } from "@/lib/geometry/length-units";
 import { DENSITY_KG_PER_M3, massFromVolumeKg, netCoatedAreaM2, plateMassKg, type Material } from "@/lib/geometry/mass";
 import { DIMENSION_TEMPLATES, findTemplate } from "@/lib/geometry/templates";
-import {
-  IMPORT_MAX_ROWS,
-  MASS_ORIGINS,
-  partInputSchema,
-  type AreaOrigin,
-  type ImportMode,
-  type MassOrigin,
-  type PartInput,
-  type PartMaterial,
-  type PartMeasureInput,
-} from "@/lib/validation/parts";
+import { MASS_ORIGINS, type AreaOrigin, type MassOrigin, type PartMaterial } from "@/lib/parts/part-fields";
+import { IMPORT_MAX_ROWS, partInputSchema, type ImportMode, type PartInput, type PartMeasureInput } from "@/lib/validation/parts";
 import { ApiError, isUniqueViolation, zodFields } from "./http";
 import { findMesh, type MeshView } from "./meshes";
 

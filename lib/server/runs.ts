@@ -7,6 +7,7 @@ import { getDb, type Db } from "@/db/index";
 import { curePointsOf, listCoatingRows } from "@/db/queries/coatings";
 import { listLineRows, stagesOf } from "@/db/queries/lines";
 import { getPlantSettings } from "@/db/queries/plant-settings";
+import { findRackPlanFor, rackPlansForParts, type RackPlanRow } from "@/db/queries/rack-plans";
 import {
   coatsOf,
   deleteDraftRun,
@@ -35,6 +36,7 @@ import { dateToEpoch, epochToDate, nowSeconds, toCoatingView, type CoatingView }
 import { utilisationEstimate } from "./feedback";
 import { ApiError } from "./http";
 import { toLineView, type LineView } from "./lines";
+import { savedPlanKey, savedRackingOf, type SavedRacking } from "./rack-plans";
 import type { SessionUser } from "./session";
 
 export interface RunPartView {
@@ -132,13 +134,16 @@ interface Context {
   lines: Map<number, LineView>;
   coatings: Map<number, CoatingView>;
   parts: Map<string, RunPartRow>;
+  /** saved racking plans of these parts, keyed savedPlanKey(partId, lineId) */
+  savedPlans: Map<string, RackPlanRow>;
 }
 
 async function loadContext(db: Db, partIds: string[]): Promise<Context> {
-  const [lineRows, coatingRows, parts] = await Promise.all([
+  const [lineRows, coatingRows, parts, savedPlans] = await Promise.all([
     listLineRows(db, { includeArchived: true }),
     listCoatingRows(db, { includeArchived: true }),
     partsForRuns(db, [...new Set(partIds)]),
+    rackPlansForParts(db, [...new Set(partIds)]),
   ]);
   const [stages, points] = await Promise.all([stagesOf(db, lineRows.map((l) => l.id)), curePointsOf(db, coatingRows.map((c) => c.id))]);
   return {
@@ -146,6 +151,7 @@ async function loadContext(db: Db, partIds: string[]): Promise<Context> {
     // lots are not needed to plan; the view's stock fields stay empty here
     coatings: new Map(coatingRows.map((c) => [c.id, toCoatingView(c, points.filter((p) => p.coating_id === c.id), [])])),
     parts: new Map(parts.map((p) => [p.id, p])),
+    savedPlans: new Map(savedPlans.map((r) => [savedPlanKey(r.part_id, r.line_id), r])),
   };
 }
 
@@ -216,19 +222,47 @@ async function measuredUtilisations(db: Db, pairs: { lineId: number; coatingId: 
   return out;
 }
 
+/**
+ * Runs still being planned follow their part × line's saved racking plan as it changes. Once a
+ * run starts (or is cancelled) the plan's racking is copied into the run (changeRunStatus), so a
+ * later edit of the plan never rewrites what was actually hung and coated.
+ */
+function followsSavedPlan(status: RunStatus): boolean {
+  return status === "draft" || status === "planned";
+}
+
+/**
+ * The run's racking: a saved racking plan for its part × line replaces the run's own clearance and
+ * orientation (the live planner's best); a count set by hand on the run still wins over both.
+ */
+function runRacking(run: StoredRun, part: RunPartView, saved: RackPlanRow | undefined): PlanRunInput["racking"] {
+  if (saved && run.partsPerCarrierOverride === null) {
+    const s: SavedRacking = savedRackingOf(saved, part);
+    return { clearanceMm: s.clearanceMm, orientations: s.orientations, orientation: s.orientation, partsPerCarrierOverride: null, savedPlanId: s.savedPlanId };
+  }
+  return {
+    clearanceMm: run.clearanceMm,
+    orientations: run.orientations,
+    orientation: run.orientation,
+    partsPerCarrierOverride: run.partsPerCarrierOverride,
+  };
+}
+
 /** The pure plan's input from a run and what it refers to; null pieces are reported as problems. */
-function planInput(run: StoredRun, part: RunPartView, line: LineView, coatings: Map<number, PlanCoating>, measured: MeasuredMap = new Map()): PlanRunInput {
+function planInput(
+  run: StoredRun,
+  part: RunPartView,
+  line: LineView,
+  coatings: Map<number, PlanCoating>,
+  measured: MeasuredMap = new Map(),
+  saved?: RackPlanRow,
+): PlanRunInput {
   return {
     part: planPartOf(part),
     quantity: run.quantity,
     line,
     lineSpeedMPerMin: run.lineSpeedMPerMin,
-    racking: {
-      clearanceMm: run.clearanceMm,
-      orientations: run.orientations,
-      orientation: run.orientation,
-      partsPerCarrierOverride: run.partsPerCarrierOverride,
-    },
+    racking: runRacking(run, part, saved),
     coats: run.coats.map((c, i) => {
       const coating = coatings.get(c.coatingId);
       if (!coating) throw new DomainError(`coats.${i}.coatingId`, "No such coating.");
@@ -250,11 +284,12 @@ function tryPlan(
   line: LineView | undefined,
   coatings: Map<number, PlanCoating>,
   measured: MeasuredMap,
+  saved?: RackPlanRow,
 ): { plan: RunPlan | null; planError: PlanProblem | null } {
   if (!part) return { plan: null, planError: { field: "partId", message: "The run's part is missing from the catalogue." } };
   if (!line) return { plan: null, planError: { field: "lineId", message: "The run's line is missing." } };
   try {
-    return { plan: planRun(planInput(run, part, line, coatings, measured)), planError: null };
+    return { plan: planRun(planInput(run, part, line, coatings, measured, saved)), planError: null };
   } catch (e) {
     if (e instanceof DomainError) return { plan: null, planError: { field: e.field, message: e.message } };
     throw e;
@@ -347,7 +382,8 @@ async function planRows(db: Db, rows: RunListRow[]): Promise<{ planned: Planned[
       coats.filter((c) => c.run_id === row.id),
       ctx,
     );
-    const { plan, planError } = tryPlan(base.stored, base.part, ctx.lines.get(row.line_id), ctx.coatings, measured);
+    const saved = followsSavedPlan(row.status) ? ctx.savedPlans.get(savedPlanKey(row.part_id, row.line_id)) : undefined;
+    const { plan, planError } = tryPlan(base.stored, base.part, ctx.lines.get(row.line_id), ctx.coatings, measured, saved);
     return { row, base, plan, planError };
   });
   return { planned, ctx };
@@ -459,7 +495,8 @@ function rowValues(input: RunInput, plan: RunPlan) {
 async function planChecked(db: Db, input: RunInput): Promise<RunPlan> {
   const { part, line, coatings } = await checkReferences(db, input);
   const measured = await measuredUtilisations(db, input.coats.map((c) => ({ lineId: line.id, coatingId: c.coatingId })), coatings);
-  return planRun(planInput(storedFromInput(input), part, line, coatings, measured));
+  const saved = await findRackPlanFor(db, input.partId, input.lineId);
+  return planRun(planInput(storedFromInput(input), part, line, coatings, measured, saved));
 }
 
 const hours = (min: number) => formatSignificant(min / 60, 3);
@@ -558,9 +595,24 @@ export async function changeRunStatus(id: number, to: RunStatus): Promise<RunDet
   if ((to === "planned" || to === "in-progress") && run.planError) {
     throw new ApiError(409, "conflict", `This run no longer plans (${run.planError.message}); edit it first.`);
   }
-  if (!(await setRunStatus(db, id, run.status, to, nowSeconds()))) {
-    throw new ApiError(409, "conflict", "The run changed meanwhile; reload it and try again.");
-  }
+  const saved =
+    followsSavedPlan(run.status) && !followsSavedPlan(to) && run.partsPerCarrierOverride === null && run.part
+      ? await findRackPlanFor(db, run.partId, run.lineId)
+      : undefined;
+  const moved = await db.transaction().execute(async (trx) => {
+    if (!(await setRunStatus(trx, id, run.status, to, nowSeconds()))) return false;
+    if (saved && run.part) {
+      // freeze the saved plan's racking into the run (see followsSavedPlan)
+      const r = savedRackingOf(saved, run.part);
+      await trx
+        .updateTable("runs")
+        .set({ clearance_mm: r.clearanceMm, orientations: r.orientations, orientation_json: r.orientation ? JSON.stringify(r.orientation) : null })
+        .where("id", "=", id)
+        .execute();
+    }
+    return true;
+  });
+  if (!moved) throw new ApiError(409, "conflict", "The run changed meanwhile; reload it and try again.");
   return getRun(id);
 }
 

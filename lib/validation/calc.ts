@@ -1,30 +1,57 @@
 /**
- * Input schemas of the calculator routes (`POST /api/calc/*`), shared by route handlers and
- * forms. Field names and units follow PRODUCT.md; every message names the allowed range.
- * Upper bounds keep results finite and catch unit mistakes; they are not limits of real plants.
+ * Input schemas of the calculator routes (`POST /api/calc/*`), built from the limits and messages
+ * in lib/coating-math/calc-inputs.ts (zod-free, so the calculators page checks the same rules in
+ * the browser without zod). Field names and units follow PRODUCT.md; every message names the
+ * allowed range.
  */
 import { z } from "zod";
-import { DomainError, describeRange, type NumericRange } from "@/lib/coating-math/errors";
+import type { NumericRange } from "@/lib/coating-math/errors";
+import {
+  CURE_INPUT,
+  ECOAT_INPUT,
+  FILM_LISTS,
+  FILM_NOMINAL_INPUT,
+  FILM_SPEC_INPUT,
+  LINE_INPUT,
+  MAX_READINGS,
+  MESSAGES,
+  nonFiniteResultError,
+  POWDER_INPUT,
+  READING_RANGE,
+  rangeMessage,
+  type NumberRule,
+  type NumberRules,
+} from "@/lib/coating-math/calc-inputs";
 
-const MAX_AREA_M2 = 1_000_000;
-const MAX_FILM_UM = 5_000;
-const MAX_PARTS = 10_000_000;
-const MAX_PRICE_PER_KG = 1_000_000;
-const MAX_READINGS = 10_000;
-const MAX_TEMP_C = 1_000;
-const MIN_TEMP_C = -50;
-const MAX_MINUTES = 10_000;
+// The routes and the OpenAPI document use the same blame table as the calculators page.
+export { resultBlame } from "@/lib/coating-math/calc-inputs";
 
 /** A finite number in `range`; every check carries the same message naming the whole range. */
 function rangeNumber(range: NumericRange) {
-  const message = `must be ${describeRange(range)}`;
-  let schema = z.number({ error: (issue) => (issue.input === undefined ? "is required" : message) });
+  const message = rangeMessage(range);
+  let schema = z.number({ error: (issue) => (issue.input === undefined ? MESSAGES.required : message) });
   if (range.integer) schema = schema.int(message);
   if (range.gt !== undefined) schema = schema.gt(range.gt, message);
   if (range.gte !== undefined) schema = schema.gte(range.gte, message);
   if (range.lt !== undefined) schema = schema.lt(range.lt, message);
   if (range.lte !== undefined) schema = schema.lte(range.lte, message);
   return schema;
+}
+
+type NumberSchema<R extends NumberRule> = R extends { default: number }
+  ? z.ZodDefault<z.ZodNumber>
+  : R extends { optional: true }
+    ? z.ZodOptional<z.ZodNumber>
+    : z.ZodNumber;
+
+/** One zod number per rule: its range, then its default or `.optional()`. */
+function numberShape<T extends NumberRules>(rules: T): { [K in keyof T]: NumberSchema<T[K]> } {
+  const shape: Record<string, z.ZodType> = {};
+  for (const [name, rule] of Object.entries(rules)) {
+    const n = rangeNumber(rule.range);
+    shape[name] = rule.default !== undefined ? n.default(rule.default) : rule.optional ? n.optional() : n;
+  }
+  return shape as { [K in keyof T]: NumberSchema<T[K]> };
 }
 
 /** Names unknown fields instead of zod's generic text. */
@@ -37,85 +64,23 @@ const objectParams = {
 
 /** "is required" for a missing list, `message` for anything else that is not a list. */
 function listError(message: string) {
-  return (issue: { input?: unknown }) => (issue.input === undefined ? "is required" : message);
+  return (issue: { input?: unknown }) => (issue.input === undefined ? MESSAGES.required : message);
 }
 
-const areaM2 = rangeNumber({ gt: 0, lte: MAX_AREA_M2 });
-const filmUm = rangeNumber({ gt: 0, lte: MAX_FILM_UM });
-const parts = rangeNumber({ integer: true, gte: 1, lte: MAX_PARTS }).default(1);
-const fraction = rangeNumber({ gt: 0, lte: 1 });
-const temperatureC = rangeNumber({ gte: MIN_TEMP_C, lte: MAX_TEMP_C });
-const readingUm = rangeNumber({ gte: 0, lte: 50_000 });
+const readingUm = rangeNumber(READING_RANGE);
 
-export const powderInputSchema = z
-  .object(
-    {
-      areaM2,
-      filmUm,
-      specificGravity: rangeNumber({ gt: 0, lte: 20 }),
-      firstPassEfficiency: fraction,
-      reclaimEfficiency: rangeNumber({ gte: 0, lte: 1 }).default(0),
-      parts,
-      pricePerKg: rangeNumber({ gte: 0, lte: MAX_PRICE_PER_KG }).optional(),
-    },
-    objectParams,
-  )
-  .strict();
+export const powderInputSchema = z.object(numberShape(POWDER_INPUT), objectParams).strict();
 
-export const ecoatInputSchema = z
-  .object(
-    {
-      areaM2,
-      filmUm,
-      filmDensityGPerCm3: rangeNumber({ gt: 0, lte: 20 }),
-      coulombicYieldMgPerC: rangeNumber({ gt: 0, lte: 1_000 }),
-      parts,
-      partsPerHour: rangeNumber({ gt: 0, lte: 1_000_000 }).optional(),
-    },
-    objectParams,
-  )
-  .strict();
+export const ecoatInputSchema = z.object(numberShape(ECOAT_INPUT), objectParams).strict();
 
-export const lineInputSchema = z
-  .object(
-    {
-      lineSpeedMPerMin: rangeNumber({ gt: 0, lte: 1_000 }),
-      carrierPitchM: rangeNumber({ gt: 0, lte: 1_000 }),
-      partsPerCarrier: rangeNumber({ gt: 0, lte: 100_000 }),
-      ovenPathLengthM: rangeNumber({ gt: 0, lte: 100_000 }),
-      requiredDwellMin: rangeNumber({ gt: 0, lte: MAX_MINUTES }).optional(),
-      loadedFraction: fraction.default(1),
-    },
-    objectParams,
-  )
-  .strict();
+export const lineInputSchema = z.object(numberShape(LINE_INPUT), objectParams).strict();
 
 export const cureInputSchema = z
-  .object(
-    {
-      thicknessMm: rangeNumber({ gt: 0, lte: 1_000 }),
-      airTempC: temperatureC,
-      startTempC: temperatureC,
-      targetMetalTempC: temperatureC,
-      holdMin: rangeNumber({ gte: 0, lte: MAX_MINUTES }),
-      heatTransferCoefficientWPerM2K: rangeNumber({ gt: 0, lte: 10_000 }),
-      densityKgPerM3: rangeNumber({ gt: 0, lte: 25_000 }).default(7850),
-      specificHeatJPerKgK: rangeNumber({ gt: 0, lte: 10_000 }).default(490),
-      thermalConductivityWPerMK: rangeNumber({ gt: 0, lte: 1_000 }).default(50),
-      ovenDwellMin: rangeNumber({ gte: 0, lte: MAX_MINUTES }).optional(),
-    },
-    objectParams,
-  )
+  .object(numberShape(CURE_INPUT), objectParams)
   .strict()
-  .refine((v) => v.targetMetalTempC < v.airTempC, {
-    path: ["targetMetalTempC"],
-    message: "must be below the oven air temperature (airTempC): metal never reaches the air temperature",
-  });
+  .refine((v) => v.targetMetalTempC < v.airTempC, { path: ["targetMetalTempC"], message: MESSAGES.cureTarget });
 
-const specFields = {
-  specMinUm: rangeNumber({ gt: 0, lte: MAX_FILM_UM }),
-  specMaxUm: rangeNumber({ gt: 0, lte: MAX_FILM_UM }),
-};
+const specFields = numberShape(FILM_SPEC_INPUT);
 
 const pa2FilmSchema = z
   .object(
@@ -128,16 +93,16 @@ const pa2FilmSchema = z
             .array(
               z
                 .array(readingUm, { error: "must be a list of gauge readings in µm" })
-                .min(3, "a spot needs at least 3 gauge readings")
-                .max(100, "a spot takes at most 100 gauge readings"),
+                .min(FILM_LISTS.spotMin, MESSAGES.spotMin)
+                .max(FILM_LISTS.spotMax, MESSAGES.spotMax),
               { error: "must be a list of spots" },
             )
-            .min(1, "an area needs at least 1 spot")
-            .max(100, "an area takes at most 100 spots"),
+            .min(FILM_LISTS.areaMin, MESSAGES.areaMin)
+            .max(FILM_LISTS.areaMax, MESSAGES.areaMax),
           { error: listError("must be a list of areas, each a list of spots, each a list of readings") },
         )
-        .min(1, "at least 1 area is required")
-        .max(Math.floor(MAX_READINGS / 3), `at most ${Math.floor(MAX_READINGS / 3)} areas`),
+        .min(FILM_LISTS.areasMin, MESSAGES.areasMin)
+        .max(FILM_LISTS.areasMax, MESSAGES.areasMax),
     },
     objectParams,
   )
@@ -145,9 +110,7 @@ const pa2FilmSchema = z
   .superRefine((v, ctx) => {
     let count = 0;
     for (const area of v.areas) for (const spot of area) count += spot.length;
-    if (count > MAX_READINGS) {
-      ctx.addIssue({ code: "custom", path: ["areas"], message: `at most ${MAX_READINGS} gauge readings in all` });
-    }
+    if (count > MAX_READINGS) ctx.addIssue({ code: "custom", path: ["areas"], message: MESSAGES.totalMax });
   });
 
 const isoFilmSchema = z
@@ -155,29 +118,23 @@ const isoFilmSchema = z
     {
       rule: z.literal("iso19840"),
       ...specFields,
-      nominalUm: rangeNumber({ gt: 0, lte: MAX_FILM_UM }),
+      ...numberShape(FILM_NOMINAL_INPUT),
       readingsUm: z
         .array(readingUm, { error: listError("must be a list of gauge readings in µm") })
-        .min(1, "at least 1 gauge reading is required")
-        .max(MAX_READINGS, `at most ${MAX_READINGS} gauge readings`),
+        .min(FILM_LISTS.readingsMin, MESSAGES.readingsMin)
+        .max(FILM_LISTS.readingsMax, MESSAGES.readingsMax),
     },
     objectParams,
   )
   .strict()
-  .refine((v) => v.nominalUm <= v.specMaxUm, {
-    path: ["nominalUm"],
-    message: "must be at most specMaxUm",
-  });
+  .refine((v) => v.nominalUm <= v.specMaxUm, { path: ["nominalUm"], message: MESSAGES.atMostSpecMax });
 
 export const filmInputSchema = z
   .discriminatedUnion("rule", [pa2FilmSchema, isoFilmSchema], {
     error: (issue) =>
       issue.code === "invalid_union" ? 'must be "sspc-pa2" or "iso19840"' : undefined,
   })
-  .refine((v) => v.specMinUm <= v.specMaxUm, {
-    path: ["specMinUm"],
-    message: "must be at most specMaxUm",
-  });
+  .refine((v) => v.specMinUm <= v.specMaxUm, { path: ["specMinUm"], message: MESSAGES.atMostSpecMax });
 
 export type PowderInput = z.infer<typeof powderInputSchema>;
 export type EcoatInput = z.infer<typeof ecoatInputSchema>;
@@ -263,42 +220,6 @@ export type LineResultBody = z.infer<typeof lineResultSchema>;
 export type CureResultBody = z.infer<typeof cureResultSchema>;
 export type FilmResultBody = z.infer<typeof filmResultSchema>;
 
-/** For each output field, the input most likely at fault when it cannot be computed. */
-export const resultBlame = {
-  powder: {
-    theoreticalCoverageM2PerKg: "specificGravity",
-    materialUtilization: "firstPassEfficiency",
-    practicalCoverageM2PerKg: "specificGravity",
-    powderKg: "firstPassEfficiency",
-    powderKgPerPart: "firstPassEfficiency",
-    costTotal: "pricePerKg",
-  },
-  ecoat: {
-    depositedSolidsKg: "areaM2",
-    depositedSolidsKgPerPart: "areaM2",
-    chargeC: "coulombicYieldMgPerC",
-    chargeCPerPart: "coulombicYieldMgPerC",
-    chargePerAreaCPerM2: "coulombicYieldMgPerC",
-    averageCurrentA: "partsPerHour",
-    solidsKgPerHour: "partsPerHour",
-  },
-  line: {
-    carriersPerHour: "carrierPitchM",
-    partsPerHour: "carrierPitchM",
-    ovenDwellMin: "lineSpeedMPerMin",
-    maxLineSpeedForDwellMPerMin: "requiredDwellMin",
-    dwellMarginMin: "requiredDwellMin",
-  },
-  cure: {
-    timeConstantMin: "heatTransferCoefficientWPerM2K",
-    heatUpMin: "targetMetalTempC",
-    totalMin: "holdMin",
-    biotNumber: "thermalConductivityWPerMK",
-    dwellMarginMin: "ovenDwellMin",
-  },
-  film: { spotsUm: "areas", areasUm: "areas", meanUm: "readingsUm", fractionBelowNominal: "readingsUm" },
-} as const satisfies Record<string, Record<string, string>>;
-
 /**
  * Parses a calculation's result with its output schema. A non-finite number (an overflow from
  * inputs that are each in range) throws a DomainError naming the input most likely at fault,
@@ -311,10 +232,5 @@ export function checkedResult<S extends z.ZodType>(
 ): z.output<S> {
   const parsed = schema.safeParse(result);
   if (parsed.success) return parsed.data;
-  const output = String(parsed.error.issues[0]?.path[0] ?? "result");
-  const field = blame[output] ?? output;
-  throw new DomainError(
-    field,
-    `${field} is too extreme: the ${output} cannot be computed as a finite number from these inputs.`,
-  );
+  throw nonFiniteResultError(String(parsed.error.issues[0]?.path[0] ?? "result"), blame);
 }

@@ -5,24 +5,7 @@
 import { z } from "zod";
 import { describeRange, type NumericRange } from "@/lib/coating-math/errors";
 import { COATING_KINDS } from "@/lib/lines/stages";
-
-export const POWDER_CHEMISTRIES = ["polyester", "super-durable-polyester", "epoxy", "hybrid", "polyurethane", "acrylic", "zinc-rich-epoxy"] as const;
-export const ECOAT_CHEMISTRIES = ["cathodic-epoxy", "cathodic-acrylic", "anodic-acrylic"] as const;
-export const CHEMISTRIES = [...POWDER_CHEMISTRIES, ...ECOAT_CHEMISTRIES] as const;
-export type Chemistry = (typeof CHEMISTRIES)[number];
-
-export const CHEMISTRY_LABELS: Readonly<Record<Chemistry, string>> = {
-  polyester: "Polyester",
-  "super-durable-polyester": "Super-durable polyester",
-  epoxy: "Epoxy",
-  hybrid: "Hybrid (epoxy-polyester)",
-  polyurethane: "Polyurethane",
-  acrylic: "Acrylic",
-  "zinc-rich-epoxy": "Zinc-rich epoxy primer",
-  "cathodic-epoxy": "Cathodic epoxy e-coat",
-  "cathodic-acrylic": "Cathodic acrylic e-coat",
-  "anodic-acrylic": "Anodic acrylic e-coat",
-};
+import { CHEMISTRIES, ECOAT_CHEMISTRIES, POWDER_CHEMISTRIES } from "@/lib/coatings/chemistries";
 
 /** A finite number in `range`; one message naming the whole range for every way it can be wrong. */
 export function rangeNumber(range: NumericRange, unit = "") {

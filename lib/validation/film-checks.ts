@@ -105,16 +105,39 @@ export const csvMappingSchema = z
   })
   .strict();
 
+const gaugeFields = {
+  name: z.string({ error: "Name the gauge." }).trim().min(1, "Name the gauge.").max(100, "Keep the name under 100 characters."),
+  gaugeType: z.enum(["type1", "type2"], { error: "Choose type 1 (magnetic pull-off) or type 2 (electronic)." }),
+  serial: z.string({ error: "Enter the serial number as text." }).trim().max(100, "Keep the serial under 100 characters.").optional(),
+  verifiedOn: z.string({ error: "Enter a date like 2026-12-03." }).regex(/^\d{4}-\d{2}-\d{2}$/, "Enter a date like 2026-12-03.").nullable().optional(),
+  // The plant's choice: how often its procedure has each gauge verified.
+  verifyIntervalMonths: z
+    .number({ error: "Enter the interval as a whole number of months." })
+    .int("Enter a whole number of months.")
+    .min(1, "Enter at least 1 month.")
+    .max(120, "Enter at most 120 months (10 years)."),
+  mapping: csvMappingSchema.nullable().optional(),
+};
+
 export const gaugeInputSchema = z
-  .object({
-    name: z.string().trim().min(1, "Name the gauge.").max(100, "Keep the name under 100 characters."),
-    gaugeType: z.enum(["type1", "type2"], { error: "Choose type 1 (magnetic pull-off) or type 2 (electronic)." }),
-    serial: z.string().trim().max(100).optional(),
-    verifiedOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Enter a date like 2026-12-03.").nullable().optional(),
-    mapping: csvMappingSchema.nullable().optional(),
-  })
+  .object({ ...gaugeFields, verifyIntervalMonths: gaugeFields.verifyIntervalMonths.optional() })
   .strict();
 export type GaugeInput = z.infer<typeof gaugeInputSchema>;
+
+/** PUT /api/gauges/[id]: the fields sent change, the rest stay; `mapping: null` forgets the CSV mapping. */
+export const gaugeUpdateSchema = z
+  .object({
+    name: gaugeFields.name.optional(),
+    gaugeType: gaugeFields.gaugeType.optional(),
+    serial: gaugeFields.serial,
+    verifiedOn: gaugeFields.verifiedOn,
+    verifyIntervalMonths: gaugeFields.verifyIntervalMonths.optional(),
+    mapping: gaugeFields.mapping,
+    retired: z.boolean({ error: "Send true to retire the gauge, false to bring it back." }).optional(),
+  })
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: "Send at least one field to change.", path: ["body"] });
+export type GaugeUpdate = z.infer<typeof gaugeUpdateSchema>;
 
 export const trendQuerySchema = z.object({
   coatingId: z.coerce.number().int().positive("Choose a coating."),

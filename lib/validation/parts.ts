@@ -3,29 +3,8 @@
  * from (areaOrigin) decides which of the other fields are required. Messages say what to enter.
  */
 import { z } from "zod";
-
-export const MATERIALS = ["steel", "stainless", "aluminium", "other"] as const;
-export type PartMaterial = (typeof MATERIALS)[number];
-
-export const AREA_ORIGINS = ["mesh", "template", "formula", "manual"] as const;
-export type AreaOrigin = (typeof AREA_ORIGINS)[number];
-
-export const MASS_ORIGINS = ["volume", "sheet", "entered"] as const;
-export type MassOrigin = (typeof MASS_ORIGINS)[number];
-
-/** Upper bounds: far above any part a conveyor carries, low enough to catch a slipped decimal. */
-export const PART_LIMITS = {
-  densityKgPerM3: 25_000,
-  thicknessMm: 500,
-  massKg: 100_000,
-  areaM2: 10_000,
-  sizeMm: 100_000,
-  dimensions: 12,
-  formulaChars: 500,
-} as const;
-
-/** A formula's dimension names: what mathjs reads as one symbol. */
-export const DIMENSION_NAME = /^[A-Za-z_][A-Za-z0-9_]{0,31}$/;
+import { AREA_ORIGINS, DIMENSION_NAME, MASS_ORIGINS, MATERIALS, PART_LIMITS } from "@/lib/parts/part-fields";
+import type { AreaOrigin, MassOrigin, PartMaterial } from "@/lib/parts/part-fields";
 
 const num = (message: string) =>
   z.number({ error: (issue) => (issue.input === undefined || issue.input === null ? "Required." : message) }).refine(Number.isFinite, message);

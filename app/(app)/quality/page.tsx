@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { requirePageUser } from "@/lib/server/guard";
 import { QualityTrend } from "@/components/film-checks/quality-trend";
 
@@ -11,6 +12,9 @@ export default async function QualityRoute({ searchParams }: { searchParams: Pro
     <div className="space-y-4">
       <h1 className="text-2xl font-semibold">Quality — film build over time</h1>
       <p className="text-ink-soft">Each point is one film check of the chosen coating on the chosen line, in run-date order.</p>
+      <p className="text-sm">
+        <Link className="text-phosphate-dark underline" href="/quality/gauges">Gauges and their verification</Link>
+      </p>
       <QualityTrend unitSystem={user.unitSystem} initialCoatingId={num(sp.coatingId)} initialLineId={num(sp.lineId)} />
     </div>
   );

@@ -1,24 +1,25 @@
 "use client";
 import { useMemo, useState } from "react";
 import useSWR from "swr";
-import {
-  createColumnHelper,
-  flexRender,
-  getCoreRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type SortingState,
-} from "@tanstack/react-table";
 import { FetchError, sendJson } from "@/lib/fetcher";
 import { TextField } from "@/components/ui/text-field";
+import { SortHeader, sortRows, type SortState } from "@/components/ui/sort-header";
 import type { UserView } from "@/lib/server/users";
 
 const ROLES = ["admin", "manager", "supervisor", "engineer", "purchaser", "operator"] as const;
-const col = createColumnHelper<UserView>();
+type Column = "name" | "email" | "role" | "status";
+
+function status(u: UserView): string {
+  return !u.active ? "deactivated" : u.passwordSet ? "active" : "invited";
+}
+
+function sortValue(u: UserView, column: Column): string {
+  return column === "status" ? status(u) : u[column];
+}
 
 export function UsersAdmin({ meId }: { meId: string }) {
   const { data, error, isLoading, mutate } = useSWR<{ users: UserView[] }>("/api/admin/users");
-  const [sorting, setSorting] = useState<SortingState>([{ id: "email", desc: false }]);
+  const [sort, setSort] = useState<SortState<Column>>({ key: "email", desc: false });
   const [notice, setNotice] = useState<string | null>(null);
   const [confirming, setConfirming] = useState<string | null>(null);
 
@@ -32,58 +33,23 @@ export function UsersAdmin({ meId }: { meId: string }) {
     }
   }
 
-  const columns = useMemo(
-    () => [
-      col.accessor("name", { header: "Name" }),
-      col.accessor("email", { header: "E-mail" }),
-      col.accessor("role", {
-        header: "Role",
-        cell: (c) => (
-          <select
-            aria-label={`Role of ${c.row.original.email}`}
-            className="field py-1"
-            value={c.getValue()}
-            disabled={c.row.original.id === meId}
-            onChange={(e) => patch(c.row.original.id, { role: e.target.value }, `${c.row.original.email} is now ${e.target.value}.`)}
-          >
-            {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
-          </select>
-        ),
-      }),
-      col.accessor((u) => (!u.active ? "deactivated" : u.passwordSet ? "active" : "invited"), { id: "status", header: "Status" }),
-      col.display({
-        id: "actions",
-        header: () => <span className="sr-only">Actions</span>,
-        cell: (c) => {
-          const u = c.row.original;
-          if (u.id === meId) return <span className="text-xs text-ink-faint">you</span>;
-          if (!u.active)
-            return <button className="btn-quiet" onClick={() => patch(u.id, { active: true }, `${u.email} reactivated.`)}>Reactivate</button>;
-          return confirming === u.id ? (
-            <span className="flex gap-2">
-              <button className="btn-danger" onClick={() => { setConfirming(null); patch(u.id, { active: false }, `${u.email} deactivated; their sessions ended.`); }}>
-                Yes, deactivate
-              </button>
-              <button className="btn-quiet" onClick={() => setConfirming(null)}>Keep</button>
-            </span>
-          ) : (
-            <button className="btn-quiet" onClick={() => setConfirming(u.id)}>Deactivate…</button>
-          );
-        },
-      }),
-    ],
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [meId, confirming],
-  );
+  const users = useMemo(() => sortRows(data?.users ?? [], sort, sortValue), [data, sort]);
+  const header = (column: Column, label: string) => <SortHeader label={label} column={column} sort={sort} onSort={setSort} />;
 
-  const table = useReactTable({
-    data: data?.users ?? [],
-    columns,
-    state: { sorting },
-    onSortingChange: setSorting,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-  });
+  function actions(u: UserView) {
+    if (u.id === meId) return <span className="text-xs text-ink-faint">you</span>;
+    if (!u.active) return <button className="btn-quiet" onClick={() => patch(u.id, { active: true }, `${u.email} reactivated.`)}>Reactivate</button>;
+    return confirming === u.id ? (
+      <span className="flex gap-2">
+        <button className="btn-danger" onClick={() => { setConfirming(null); patch(u.id, { active: false }, `${u.email} deactivated; their sessions ended.`); }}>
+          Yes, deactivate
+        </button>
+        <button className="btn-quiet" onClick={() => setConfirming(null)}>Keep</button>
+      </span>
+    ) : (
+      <button className="btn-quiet" onClick={() => setConfirming(u.id)}>Deactivate…</button>
+    );
+  }
 
   return (
     <>
@@ -97,29 +63,32 @@ export function UsersAdmin({ meId }: { meId: string }) {
         ) : (
           <table className="w-full text-left text-sm">
             <thead>
-              {table.getHeaderGroups().map((hg) => (
-                <tr key={hg.id} className="border-b border-plate-line">
-                  {hg.headers.map((h) => (
-                    <th key={h.id} className="py-2 pr-3 font-medium" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : undefined}>
-                      {h.column.getCanSort() ? (
-                        <button className="flex items-center gap-1" onClick={h.column.getToggleSortingHandler()}>
-                          {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden>{h.column.getIsSorted() === "asc" ? "▲" : h.column.getIsSorted() === "desc" ? "▼" : "↕"}</span>
-                        </button>
-                      ) : (
-                        flexRender(h.column.columnDef.header, h.getContext())
-                      )}
-                    </th>
-                  ))}
-                </tr>
-              ))}
+              <tr className="border-b border-plate-line">
+                {header("name", "Name")}
+                {header("email", "E-mail")}
+                {header("role", "Role")}
+                {header("status", "Status")}
+                <th scope="col" className="py-2 pr-3 font-medium"><span className="sr-only">Actions</span></th>
+              </tr>
             </thead>
             <tbody>
-              {table.getRowModel().rows.map((r) => (
-                <tr key={r.id} className="border-b border-plate-line/60">
-                  {r.getVisibleCells().map((c) => (
-                    <td key={c.id} className="py-2 pr-3">{flexRender(c.column.columnDef.cell, c.getContext())}</td>
-                  ))}
+              {users.map((u) => (
+                <tr key={u.id} className="border-b border-plate-line/60">
+                  <td className="py-2 pr-3">{u.name}</td>
+                  <td className="py-2 pr-3">{u.email}</td>
+                  <td className="py-2 pr-3">
+                    <select
+                      aria-label={`Role of ${u.email}`}
+                      className="field py-1"
+                      value={u.role}
+                      disabled={u.id === meId}
+                      onChange={(e) => patch(u.id, { role: e.target.value }, `${u.email} is now ${e.target.value}.`)}
+                    >
+                      {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
+                    </select>
+                  </td>
+                  <td className="py-2 pr-3">{status(u)}</td>
+                  <td className="py-2 pr-3">{actions(u)}</td>
                 </tr>
               ))}
             </tbody>

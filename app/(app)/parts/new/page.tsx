@@ -3,7 +3,7 @@ import { requirePageUser } from "@/lib/server/guard";
 import { DENSITY_KG_PER_M3 } from "@/lib/geometry/mass";
 import { meshMaxBytes } from "@/lib/server/meshes";
 import { templateCatalogue } from "@/lib/server/parts";
-import { PartForm } from "@/components/parts/part-form";
+import { PartFormLazy } from "@/components/parts/part-form-lazy";
 
 export const metadata = { title: "Create part" };
 
@@ -15,7 +15,7 @@ export default async function NewPartPage() {
         <Link className="text-phosphate-dark underline-offset-2 hover:underline" href="/parts">← Parts</Link>
       </nav>
       <h1>Create part</h1>
-      <PartForm unitSystem={user.unitSystem} maxBytes={meshMaxBytes()} templates={templateCatalogue()} densities={{ ...DENSITY_KG_PER_M3 }} />
+      <PartFormLazy unitSystem={user.unitSystem} maxBytes={meshMaxBytes()} templates={templateCatalogue()} densities={{ ...DENSITY_KG_PER_M3 }} />
     </div>
   );
 }

@@ -5,7 +5,7 @@ import { ApiError } from "@/lib/server/http";
 import { DENSITY_KG_PER_M3 } from "@/lib/geometry/mass";
 import { meshMaxBytes } from "@/lib/server/meshes";
 import { getPart, templateCatalogue } from "@/lib/server/parts";
-import { PartForm } from "@/components/parts/part-form";
+import { PartFormLazy } from "@/components/parts/part-form-lazy";
 
 export const metadata = { title: "Edit part" };
 
@@ -22,7 +22,7 @@ export default async function EditPartPage({ params }: { params: Promise<{ id: s
         <Link className="text-phosphate-dark underline-offset-2 hover:underline" href={`/parts/${found.part.id}`}>← {found.part.number}</Link>
       </nav>
       <h1>Edit {found.part.number}</h1>
-      <PartForm
+      <PartFormLazy
         key={found.part.updatedAt}
         unitSystem={user.unitSystem}
         maxBytes={meshMaxBytes()}

@@ -1,7 +1,8 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { hasRole, requirePageUser } from "@/lib/server/guard";
-import { FilmChecksView } from "@/components/film-checks/film-checks-view";
+import { FilmChecksLazy } from "@/components/film-checks/film-checks-lazy";
+import { GAUGE_PAGE_ROLES } from "@/lib/server/film-checks";
 
 export const metadata = { title: "Film checks" };
 
@@ -14,7 +15,13 @@ export default async function FilmChecksRoute({ params }: { params: Promise<{ id
       <nav aria-label="Breadcrumb" className="text-sm">
         <Link className="text-phosphate-dark underline-offset-2 hover:underline" href={`/runs/${id}`}>← Run</Link>
       </nav>
-      <FilmChecksView runId={Number(id)} unitSystem={user.unitSystem} canWrite={hasRole(user, ["operator", "supervisor"])} isAdmin={user.role === "admin"} />
+      <FilmChecksLazy
+        runId={Number(id)}
+        unitSystem={user.unitSystem}
+        canWrite={hasRole(user, ["operator", "supervisor"])}
+        isAdmin={user.role === "admin"}
+        canSeeGauges={hasRole(user, GAUGE_PAGE_ROLES)}
+      />
     </div>
   );
 }

@@ -1,0 +1,35 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { requirePageUser } from "@/lib/server/guard";
+import { ApiError } from "@/lib/server/http";
+import { plantSettings } from "@/lib/server/plant";
+import { getRackPlan } from "@/lib/server/rack-plans";
+import { RackPlanSheet, utcText } from "@/components/racking/rack-plan-sheet";
+import "@/components/racking/rack-plan-sheet.css";
+
+export const metadata = { title: "Racking plan" };
+
+// Every signed-in role reads it: operators print it for the line.
+export default async function RackPlanPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePageUser();
+  const { id } = await params;
+  if (!/^\d{1,12}$/.test(id) || Number(id) < 1) notFound();
+  let plan;
+  try {
+    plan = await getRackPlan(Number(id));
+  } catch (e) {
+    if (e instanceof ApiError && e.status === 404) notFound();
+    throw e;
+  }
+  const plant = await plantSettings();
+  return (
+    <div className="space-y-3">
+      <nav aria-label="Breadcrumb" className="no-print text-sm">
+        <Link className="text-phosphate-dark underline-offset-2 hover:underline" href="/racking">
+          ← Racking
+        </Link>
+      </nav>
+      <RackPlanSheet plan={plan} unitSystem={user.unitSystem} plantName={plant.plantName} printedAt={utcText(Math.floor(Date.now() / 1000))} />
+    </div>
+  );
+}
