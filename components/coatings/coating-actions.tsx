@@ -1,7 +1,8 @@
 "use client";
 import { useState } from "react";
 import { FetchError, sendJson } from "@/lib/fetcher";
-import type { CoatingView, UsageRef } from "@/lib/server/coatings";
+import type { CoatingView } from "@/lib/server/coatings";
+import { ArchivePanel } from "@/components/ui/archive-panel";
 import type { UnitSystem } from "@/lib/coating-math/display-units";
 import { TextField } from "@/components/ui/text-field";
 import { parse, show, unitOf } from "@/components/lines/unit-draft";
@@ -58,42 +59,14 @@ export function ReceiveLotForm({ coating, unitSystem: sys, onReceived }: { coati
 }
 
 /** Archive the coating, with a confirmation; a coating still in use is refused with the list. */
-export function ArchivePanel({ coating, onArchived }: { coating: CoatingView; onArchived: () => void }) {
-  const [confirming, setConfirming] = useState(false);
-  const [refusal, setRefusal] = useState<{ message: string; usedBy: UsageRef[] } | null>(null);
+export function ArchiveCoating({ coating, onArchived }: { coating: CoatingView; onArchived: () => void }) {
   return (
-    <section className="card" aria-labelledby="archive-h">
-      <h2 id="archive-h">Archive</h2>
-      <p className="text-sm text-ink-soft">An archived coating leaves the library list and cannot be picked for new work; its lots and history stay.</p>
-      {confirming ? (
-        <div className="mt-2 flex gap-2">
-          <button
-            className="btn-danger"
-            onClick={async () => {
-              setConfirming(false);
-              const res = await fetch(`/api/coatings/${coating.id}`, { method: "DELETE", headers: { accept: "application/json" } });
-              if (res.ok) return onArchived();
-              const body = (await res.json().catch(() => null)) as { error?: { message?: string; usedBy?: UsageRef[] } } | null;
-              setRefusal({ message: body?.error?.message ?? `Not archived (${res.status}).`, usedBy: body?.error?.usedBy ?? [] });
-            }}
-          >
-            Yes, archive {coating.code}
-          </button>
-          <button className="btn-quiet" onClick={() => setConfirming(false)}>Keep it</button>
-        </div>
-      ) : (
-        <button className="btn-quiet mt-2" onClick={() => setConfirming(true)}>Archive…</button>
-      )}
-      {refusal && (
-        <div role="alert" className="mt-2 text-sm text-oxide">
-          <p>{refusal.message}</p>
-          {refusal.usedBy.length > 0 && (
-            <ul className="ml-5 list-disc">
-              {refusal.usedBy.map((u) => <li key={`${u.kind}-${u.id}`}>{u.label}</li>)}
-            </ul>
-          )}
-        </div>
-      )}
-    </section>
+    <ArchivePanel
+      url={`/api/coatings/${coating.id}`}
+      name={coating.code}
+      headingId="archive-h"
+      explanation="An archived coating leaves the library list and cannot be picked for new work; its lots and history stay."
+      onArchived={onArchived}
+    />
   );
 }

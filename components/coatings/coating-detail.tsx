@@ -22,7 +22,7 @@ const CoatingEditor = browserOnly(
 // Receiving a lot and archiving are the purchaser's tools: their code loads on its own, so the
 // page's first load is the same for everyone who only reads it.
 const ReceiveLotForm = browserOnly(() => import("./coating-actions").then((m) => m.ReceiveLotForm), null);
-const ArchivePanel = browserOnly(() => import("./coating-actions").then((m) => m.ArchivePanel), null);
+const ArchivePanel = browserOnly(() => import("./coating-actions").then((m) => m.ArchiveCoating), null);
 
 interface Props {
   id: number;

@@ -1,6 +1,7 @@
-import { redirect } from "next/navigation";
+import { notFound, redirect } from "next/navigation";
 import type { Role } from "@/db/schema";
 import { actionAccess, allows, type Access } from "./access";
+import { ApiError } from "./http";
 import { currentUser, type SessionUser } from "./session";
 
 /** Pages: the signed-in user, or a redirect to sign-in; a role without the right sees a 403 page. */
@@ -25,4 +26,13 @@ export async function requireActionUser(key: string): Promise<SessionUser> {
 
 export function hasRole(user: SessionUser, roles: readonly Role[]): boolean {
   return user.role === "admin" || roles.includes(user.role);
+}
+
+/** A page's record by id: the not-found page for an id that is not a number or names nothing. */
+export async function recordOrNotFound<T>(id: string, load: (id: number) => Promise<T>): Promise<T> {
+  if (!/^\d{1,12}$/.test(id) || Number(id) < 1) notFound();
+  return load(Number(id)).catch((e: unknown) => {
+    if (e instanceof ApiError && e.status === 404) notFound();
+    throw e;
+  });
 }

@@ -1,9 +1,7 @@
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { requirePageUser } from "@/lib/server/guard";
+import { recordOrNotFound, requirePageUser } from "@/lib/server/guard";
 import { plantSettings } from "@/lib/server/plant";
 import { getLine } from "@/lib/server/lines";
-import { ApiError } from "@/lib/server/http";
 import { LineEditor } from "@/components/lines/line-editor";
 
 export const metadata = { title: "Edit line" };
@@ -11,11 +9,7 @@ export const metadata = { title: "Edit line" };
 export default async function EditLinePage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageUser(["manager"]);
   const { id } = await params;
-  if (!/^\d{1,12}$/.test(id)) notFound();
-  const line = await getLine(Number(id)).catch((e) => {
-    if (e instanceof ApiError && e.status === 404) notFound();
-    throw e;
-  });
+  const line = await recordOrNotFound(id, getLine);
   const plant = await plantSettings();
   return (
     <div className="space-y-4">

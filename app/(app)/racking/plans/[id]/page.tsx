@@ -1,7 +1,5 @@
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { requirePageUser } from "@/lib/server/guard";
-import { ApiError } from "@/lib/server/http";
+import { recordOrNotFound, requirePageUser } from "@/lib/server/guard";
 import { plantSettings } from "@/lib/server/plant";
 import { getRackPlan } from "@/lib/server/rack-plans";
 import { RackPlanSheet, utcText } from "@/components/racking/rack-plan-sheet";
@@ -13,14 +11,7 @@ export const metadata = { title: "Racking plan" };
 export default async function RackPlanPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageUser();
   const { id } = await params;
-  if (!/^\d{1,12}$/.test(id) || Number(id) < 1) notFound();
-  let plan;
-  try {
-    plan = await getRackPlan(Number(id));
-  } catch (e) {
-    if (e instanceof ApiError && e.status === 404) notFound();
-    throw e;
-  }
+  const plan = await recordOrNotFound(id, getRackPlan);
   const plant = await plantSettings();
   return (
     <div className="space-y-3">

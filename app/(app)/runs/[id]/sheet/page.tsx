@@ -1,7 +1,5 @@
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { requirePageUser } from "@/lib/server/guard";
-import { ApiError } from "@/lib/server/http";
+import { recordOrNotFound, requirePageUser } from "@/lib/server/guard";
 import { plantSettings } from "@/lib/server/plant";
 import { getRun } from "@/lib/server/runs";
 import { RunSheet } from "@/components/runs/run-sheet";
@@ -12,14 +10,7 @@ export const metadata = { title: "Run sheet" };
 export default async function RunSheetRoute({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageUser();
   const { id } = await params;
-  if (!/^\d{1,12}$/.test(id)) notFound();
-  let run;
-  try {
-    run = await getRun(Number(id));
-  } catch (e) {
-    if (e instanceof ApiError && e.status === 404) notFound();
-    throw e;
-  }
+  const run = await recordOrNotFound(id, getRun);
   const plant = await plantSettings();
   return (
     <div className="space-y-3">
