@@ -9,7 +9,7 @@ import { STAGE_KIND_LABELS, type StageKind } from "@/lib/lines/stages";
 import { formatSignificant, type UnitSystem } from "@/lib/coating-math/display-units";
 import { browserOnly } from "@/components/ui/browser-only";
 import { LineTimelineChart } from "./line-timeline";
-import { dims, draft, money, parse, show, unitOf } from "./unit-draft";
+import { dims, money, parse, show, toShown, unitOf } from "./unit-draft";
 
 // The cure check is a tool below the line's facts; its code loads after the page has hydrated,
 // which keeps it out of the page's first load.
@@ -92,7 +92,9 @@ export function LineDetail({ id, unitSystem: sys, currency, canEdit }: Props) {
 
 function ConveyorBody({ line, unitSystem: sys, currency }: { line: ConveyorLineView; unitSystem: UnitSystem; currency: string }) {
   const [speed, setSpeed] = useState(line.lineSpeedNominalMPerMin);
-  const [speedText, setSpeedText] = useState(draft("speedMPerMin", line.lineSpeedNominalMPerMin, sys));
+  // three significant figures, as the speeds are shown everywhere else (9.84 ft/min, not 9.84252)
+  const speedDraft = (mPerMin: number) => formatSignificant(toShown("speedMPerMin", mPerMin, sys), 3);
+  const [speedText, setSpeedText] = useState(speedDraft(line.lineSpeedNominalMPerMin));
   const [speedError, setSpeedError] = useState<string | null>(null);
   const timeline = useMemo(() => {
     try {
@@ -106,12 +108,12 @@ function ConveyorBody({ line, unitSystem: sys, currency }: { line: ConveyorLineV
 
   function choose(metric: number) {
     setSpeed(metric);
-    setSpeedText(draft("speedMPerMin", metric, sys));
+    setSpeedText(speedDraft(metric));
     setSpeedError(null);
   }
   function typed(text: string) {
     setSpeedText(text);
-    const v = parse("speedMPerMin", text, sys, speed);
+    const v = text.trim() === speedDraft(speed) ? speed : parse("speedMPerMin", text, sys);
     if (v === undefined || Number.isNaN(v)) return setSpeedError("Enter the line speed as a number.");
     // a typed speed may sit a hair outside the range after conversion; the range ends are allowed
     if (v < lo * (1 - 1e-9) || v > hi * (1 + 1e-9)) {
