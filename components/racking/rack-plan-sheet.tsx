@@ -47,7 +47,7 @@ export function RackPlanSheet({ plan, unitSystem: sys, plantName, printedAt }: P
     : `Best found${result.blocks[0] ? `: ${blockWords(result.blocks[0].orientation)}${result.blocks.length > 1 ? ", with further blocks turned as listed" : ""}` : ""}`;
 
   return (
-    <article className="rack-sheet space-y-4" data-testid="rack-plan-sheet">
+    <article className="print-sheet rack-sheet space-y-4" data-testid="rack-plan-sheet">
       <header className="flex flex-wrap items-start gap-3 border-b border-ink pb-2">
         <div className="mr-auto">
           <p className="text-xs uppercase tracking-wide text-ink-soft">{plantName} · racking plan {plan.id}</p>

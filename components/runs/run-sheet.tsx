@@ -109,7 +109,7 @@ export function RunSheet({ run, plan, unitSystem: sys, plantName, printedAt }: P
   const part = run.part!;
 
   return (
-    <article className="run-sheet space-y-5" data-testid="run-sheet">
+    <article className="print-sheet run-sheet space-y-5" data-testid="run-sheet">
       <header className="flex flex-wrap items-start gap-3 border-b border-ink pb-2">
         <div className="mr-auto">
           <p className="text-xs uppercase tracking-wide text-ink-soft">{plantName} · run sheet</p>

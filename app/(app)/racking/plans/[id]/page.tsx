@@ -3,6 +3,7 @@ import { recordOrNotFound, requirePageUser } from "@/lib/server/guard";
 import { plantSettings } from "@/lib/server/plant";
 import { getRackPlan } from "@/lib/server/rack-plans";
 import { RackPlanSheet, utcText } from "@/components/racking/rack-plan-sheet";
+import "@/components/ui/print-sheet.css";
 import "@/components/racking/rack-plan-sheet.css";
 
 export const metadata = { title: "Racking plan" };

@@ -3,6 +3,7 @@ import { recordOrNotFound, requirePageUser } from "@/lib/server/guard";
 import { plantSettings } from "@/lib/server/plant";
 import { getRun } from "@/lib/server/runs";
 import { RunSheet } from "@/components/runs/run-sheet";
+import "@/components/ui/print-sheet.css";
 import "@/components/runs/run-sheet.css";
 
 export const metadata = { title: "Run sheet" };
