@@ -213,6 +213,8 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
   const err = (f: string) => localErrors[f] ?? apiFields[f];
   const shown = !previewError && preview && bodyText ? preview : null;
   const stale = shown !== null && (debounced !== bodyText || isValidating);
+  // the preview says when a saved racking plan decides this run's racking
+  const savedPlanId = shown?.plan.racking.savedPlanId ?? null;
 
   async function save(e: React.FormEvent) {
     e.preventDefault();
@@ -313,6 +315,15 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
 
         <fieldset className="card space-y-3">
           <legend className="px-1 font-semibold">Racking</legend>
+          {savedPlanId !== null && (
+            <p className="rounded border border-plate-line bg-plate/40 p-2 text-sm" data-testid="saved-plan-note">
+              This part has a saved racking plan on this line: the run hangs it that way, so the clearance and orientation
+              below are not used while the plan stands (a count set by hand still wins).{" "}
+              <a className="text-phosphate-dark underline" href={`/racking/plans/${savedPlanId}`}>
+                Racking plan {savedPlanId}
+              </a>
+            </p>
+          )}
           <TextField label={`Clearance between parts (${unitOf("lengthMm")})`} name="clearance" inputMode="decimal" value={draft.clearance} onChange={set("clearance")} error={err("clearanceMm")} />
           <div role="radiogroup" aria-label="Orientations" className="flex flex-wrap gap-4 text-sm">
             <label className="flex items-center gap-1.5">

@@ -196,4 +196,24 @@ describe("runs, the day board and the run sheet", () => {
     await expect.poll(() => operator.getByRole("heading", { level: 1 }).textContent(), { timeout: 15_000 }).toBe("Not for your role");
     await operator.context().close();
   });
+  it("planning a part that has a saved racking plan on the line says the plan decides the racking", async () => {
+    // demo data: the bike-rack hoop has a saved racking plan on Line 2
+    const page = await signInPage(browser, "supervisor@bramblecote.test");
+    await page.goto(`${baseUrl()}/runs`);
+    await page.getByRole("button", { name: "Plan a run" }).click();
+    await page.getByLabel("Part", { exact: true }).selectOption({ label: "BC-5020 · Bike-rack hoop, 48.3 mm tube" });
+    await page.getByLabel("Quantity (parts)").fill("40");
+    await page.getByLabel("Line", { exact: true }).selectOption({ label: "Line 2 — Powder only" });
+    await page.getByLabel("Day", { exact: true }).fill(today());
+    await page.getByLabel("Coat 1 coating").selectOption({ label: "PP-410 · powder · Bramble Green" });
+    await page.getByLabel("Coat 1 film (µm)").fill("80");
+    const note = page.getByTestId("saved-plan-note");
+    await note.waitFor({ timeout: 15_000 });
+    expect(await note.getByRole("link", { name: /^Racking plan \d+$/ }).count()).toBe(1);
+    await shot(page, "runs-plan-saved-racking");
+    // a count set by hand wins over the saved plan: the note goes
+    await page.getByLabel(/Parts per carrier, set by hand/).fill("3");
+    await expect.poll(() => note.count(), { timeout: 15_000 }).toBe(0);
+    await page.context().close();
+  });
 });
