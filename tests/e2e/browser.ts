@@ -31,7 +31,8 @@ export async function signInPage(browser: Browser, email: string, password = "co
   const context = await browser.newContext({ viewport: { width: 1280, height: 860 } });
   const page = await context.newPage();
   const errors: string[] = [];
-  page.on("console", (m) => m.type() === "error" && errors.push(m.text()));
+  // the address too, so that a failed resource says which one it was
+  page.on("console", (m) => m.type() === "error" && errors.push(m.location()?.url ? `${m.text()} [${m.location().url}]` : m.text()));
   (page as Page & { consoleErrors?: string[] }).consoleErrors = errors;
   await page.goto(`${baseUrl()}/sign-in`);
   await page.getByLabel("E-mail").fill(email);
