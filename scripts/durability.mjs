@@ -20,7 +20,7 @@ const rand = (a, b) => a + Math.random() * (b - a);
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
 function start() {
-  const child = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(port)], {
+  const child = spawn(process.execPath, ["server.mjs", "-H", "127.0.0.1", "-p", String(port)], {
     env: { ...process.env, COATWRIGHT_DEMO: "1", DATABASE_PATH: dbFile, SMTP_URL: "", NODE_ENV: "production" },
     stdio: "ignore",
   });

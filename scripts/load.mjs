@@ -16,7 +16,7 @@ const port = 3900 + Math.floor(Math.random() * 90);
 const base = `http://127.0.0.1:${port}`;
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
-const server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(port)], {
+const server = spawn(process.execPath, ["server.mjs", "-H", "127.0.0.1", "-p", String(port)], {
   env: { ...process.env, COATWRIGHT_DEMO: "1", DATABASE_PATH: path.join(dir, "load.db"), SMTP_URL: "", NODE_ENV: "production" },
   stdio: "ignore",
 });
@@ -87,6 +87,7 @@ for (const connections of [64, 200]) {
       "req/s": Math.round(r.requests.average),
       "p50 ms": r.latency.p50,
       "p99 ms": r.latency.p99,
+      "max ms": r.latency.max,
       "p99 / baseline": (r.latency.p99 / Math.max(baseline.latency.p99, 1)).toFixed(2),
       "throughput / baseline": (r.requests.average / baseline.requests.average).toFixed(2),
       errors: r.errors,

@@ -29,7 +29,7 @@ export async function setup(project: TestProject) {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "coatwright-e2e-"));
   const port = 3200 + Math.floor(Math.random() * 500);
   const base = `http://127.0.0.1:${port}`;
-  server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(port)], {
+  server = spawn(process.execPath, ["server.mjs", "-H", "127.0.0.1", "-p", String(port)], {
     env: { ...process.env, COATWRIGHT_DEMO: "1", DATABASE_PATH: path.join(dir, "e2e.db"), APP_URL: base, SMTP_URL: "", NODE_ENV: "production" },
     stdio: ["ignore", "pipe", "pipe"],
   });
