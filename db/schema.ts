@@ -212,6 +212,9 @@ export interface RunsTable {
   masking: string;
   notes: string;
   status: "draft" | "planned" | "in-progress" | "done" | "cancelled";
+  /** the plan (JSON) as it stood when the run started or was cancelled; null: planned on read */
+  plan_json: string | null;
+  plan_frozen_at: number | null;
   created_by: string | null;
   created_at: number;
   updated_at: number;

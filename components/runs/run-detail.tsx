@@ -166,6 +166,13 @@ export function RunDetailView({ id, parts, unitSystem: sys, currency, canPlan }:
         <>
           <section className="card space-y-4" aria-labelledby="plan-h">
             <h2 id="plan-h">The plan</h2>
+            {run.planFrozenAt !== null && (
+              <p className="text-sm text-ink-soft" data-testid="plan-frozen-note">
+                Kept as it stood when the run {run.status === "cancelled" ? "was cancelled" : "started"}, on{" "}
+                {new Date(run.planFrozenAt * 1000).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}: later changes to
+                the line, coatings, prices or part do not change these figures.
+              </p>
+            )}
             <PlanFacts plan={plan} unitSystem={sys} currency={currency} />
             <Warnings warnings={run.warnings} />
             <CoatsTable plan={plan} unitSystem={sys} currency={currency} />

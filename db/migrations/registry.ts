@@ -10,6 +10,7 @@ import * as filmChecks from "./2026-12-02-film-checks";
 import * as gaugeUpkeep from "./2026-12-03-gauge-upkeep";
 import * as purchasing from "./2026-12-02-purchasing";
 import * as rackPlans from "./2026-12-03-rack-plans";
+import * as frozenRunPlans from "./2026-12-04-frozen-run-plans";
 
 /**
  * Kysely's FileMigrationProvider cannot import .ts on Node 20, so migrations are listed here.
@@ -27,6 +28,7 @@ const migrations: Record<string, Migration> = {
   "2026-12-03-gauge-upkeep": gaugeUpkeep,
   "2026-12-02-purchasing": purchasing,
   "2026-12-03-rack-plans": rackPlans,
+  "2026-12-04-frozen-run-plans": frozenRunPlans,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -204,3 +204,14 @@ export async function runsUsingLine(db: Db, lineId: number): Promise<{ kind: str
     .execute();
   return rows.map((r) => ({ kind: "run", id: r.id, label: usageLabel(r) }));
 }
+
+/** Stores the plan a run keeps from now on; false when it already has one. */
+export async function freezeRunPlan(db: Db, id: number, planJson: string, t: number): Promise<boolean> {
+  const r = await db.updateTable("runs").set({ plan_json: planJson, plan_frozen_at: t }).where("id", "=", id).where("plan_json", "is", null).executeTakeFirst();
+  return Number(r.numUpdatedRows) === 1;
+}
+
+/** Runs past planning (started, done, cancelled) that have no frozen plan yet. */
+export function unfrozenRunRows(db: Db): Promise<RunListRow[]> {
+  return listQuery(db).where("runs.status", "in", ["in-progress", "done", "cancelled"]).where("runs.plan_json", "is", null).orderBy("runs.id").execute();
+}

@@ -12,6 +12,7 @@ import {
   coatsOf,
   deleteDraftRun,
   findPartForRun,
+  freezeRunPlan,
   findRunRow,
   insertRun,
   listPartsForRuns,
@@ -19,6 +20,7 @@ import {
   partsForRuns,
   setRunStatus,
   setSequences,
+  unfrozenRunRows,
   updateRun,
   type RunCoatRow,
   type RunCoatValues,
@@ -98,6 +100,8 @@ interface RunViewBase {
   editable: boolean;
   /** why the stored run no longer plans (a line or coating changed under it), or null */
   planError: PlanProblem | null;
+  /** when the plan was frozen (the run started or was cancelled), epoch s; null: planned on read */
+  planFrozenAt: number | null;
 }
 
 export interface RunSummary {
@@ -344,6 +348,7 @@ function baseView(row: RunListRow, coats: RunCoatRow[], ctx: Context): Omit<RunV
     updatedAt: row.updated_at,
     nextStatuses: [...RUN_TRANSITIONS[row.status]],
     editable: isEditable(row.status),
+    planFrozenAt: row.plan_json ? row.plan_frozen_at : null,
     stored,
   };
 }
@@ -382,6 +387,7 @@ async function planRows(db: Db, rows: RunListRow[]): Promise<{ planned: Planned[
       coats.filter((c) => c.run_id === row.id),
       ctx,
     );
+    if (row.plan_json) return { row, base, plan: JSON.parse(row.plan_json) as RunPlan, planError: null };
     const saved = followsSavedPlan(row.status) ? ctx.savedPlans.get(savedPlanKey(row.part_id, row.line_id)) : undefined;
     const { plan, planError } = tryPlan(base.stored, base.part, ctx.lines.get(row.line_id), ctx.coatings, measured, saved);
     return { row, base, plan, planError };
@@ -599,8 +605,11 @@ export async function changeRunStatus(id: number, to: RunStatus): Promise<RunDet
     followsSavedPlan(run.status) && !followsSavedPlan(to) && run.partsPerCarrierOverride === null && run.part
       ? await findRackPlanFor(db, run.partId, run.lineId)
       : undefined;
+  const t = nowSeconds();
   const moved = await db.transaction().execute(async (trx) => {
-    if (!(await setRunStatus(trx, id, run.status, to, nowSeconds()))) return false;
+    if (!(await setRunStatus(trx, id, run.status, to, t))) return false;
+    // from here on the run keeps the plan it started with (see the frozen-run-plans migration)
+    if (!followsSavedPlan(to) && run.plan && run.planFrozenAt === null) await freezeRunPlan(trx, id, JSON.stringify(run.plan), t);
     if (saved && run.part) {
       // freeze the saved plan's racking into the run (see followsSavedPlan)
       const r = savedRackingOf(saved, run.part);
@@ -614,6 +623,23 @@ export async function changeRunStatus(id: number, to: RunStatus): Promise<RunDet
   });
   if (!moved) throw new ApiError(409, "conflict", "The run changed meanwhile; reload it and try again.");
   return getRun(id);
+}
+
+/**
+ * Freezes the plan of every run past planning that has none yet (runs started before plans were
+ * frozen, or written straight into the database such as the demo's); at start-up. Returns how many.
+ */
+export async function freezeStartedRuns(): Promise<number> {
+  const db = await getDb();
+  const rows = await unfrozenRunRows(db);
+  if (!rows.length) return 0;
+  const { planned } = await planRows(db, rows);
+  const t = nowSeconds();
+  let frozen = 0;
+  await db.transaction().execute(async (trx) => {
+    for (const p of planned) if (p.plan && (await freezeRunPlan(trx, p.row.id, JSON.stringify(p.plan), t))) frozen++;
+  });
+  return frozen;
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -2,12 +2,20 @@ import { getDb } from "@/db/index";
 import { seedDemo } from "@/db/seed/demo";
 import { startMailFake } from "./mail-fake";
 import { meshUnattachedDays, sweepMeshFolder } from "./meshes";
+import { freezeStartedRuns } from "./runs";
 
 /** Runs once per server process (instrumentation): migrate, seed the demo if asked, start the mail fake. */
 export async function prepareServer(): Promise<void> {
   const db = await getDb();
   if (process.env.COATWRIGHT_DEMO === "1") {
     if (await seedDemo(db)) console.log("Coatwright: seeded the Bramblecote demo data.");
+  }
+  try {
+    const frozen = await freezeStartedRuns();
+    if (frozen > 0) console.log(`Coatwright: kept the plans of ${frozen} started, done or cancelled run(s) as they stand today.`);
+  } catch (error) {
+    // Runs without a frozen plan are planned when read, as before.
+    console.error("Coatwright: run plans could not be frozen:", error instanceof Error ? error.message : error);
   }
   try {
     const swept = await sweepMeshFolder();

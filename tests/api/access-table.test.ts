@@ -2,7 +2,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { actionAccess, allows, apiAccess, ROLES, type Method } from "@/lib/server/access";
-import { request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 import type { Role } from "@/db/schema";
 
 /*
@@ -28,7 +28,7 @@ useTempDatabase();
 const cookies: Partial<Record<Role, string>> = {};
 beforeAll(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterAll(teardown);
 

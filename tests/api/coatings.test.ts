@@ -2,7 +2,7 @@ import { afterAll, afterEach, beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import { ROLES } from "@/lib/server/access";
 import { coatingUsageChecks, type CoatingView } from "@/lib/server/coatings";
-import { params, request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 import { GET as listGet, POST as listPost } from "@/app/api/coatings/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/coatings/[id]/route";
 import { POST as lotPost } from "@/app/api/coatings/[id]/lots/route";
@@ -12,7 +12,7 @@ useTempDatabase();
 const cookies: Partial<Record<Role, string>> = {};
 beforeEach(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterEach(() => {
   coatingUsageChecks.length = 0;

@@ -1,8 +1,7 @@
 import { afterAll, beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
-import { ROLES } from "@/lib/server/access";
 import type { GaugeView } from "@/lib/server/film-checks";
-import { params, request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 import { GET as listGet, POST as listPost } from "@/app/api/gauges/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/gauges/[id]/route";
 import { POST as checkPost } from "@/app/api/runs/[id]/film-checks/route";
@@ -12,7 +11,7 @@ useTempDatabase();
 const cookies: Partial<Record<Role, string>> = {};
 beforeEach(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterAll(teardown);
 

@@ -1,8 +1,7 @@
 import { afterAll, beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
-import { ROLES } from "@/lib/server/access";
 import type { FilmCheckView, RunFilmChecks } from "@/lib/server/film-checks";
-import { params, request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 import { GET as runGet, POST as runPost } from "@/app/api/runs/[id]/film-checks/route";
 import { DELETE as oneDelete, PUT as onePut } from "@/app/api/film-checks/[id]/route";
 import type { Role } from "@/db/schema";
@@ -11,7 +10,7 @@ useTempDatabase();
 const cookies: Partial<Record<Role, string>> = {};
 beforeEach(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterAll(teardown);
 

@@ -3,6 +3,7 @@ import os from "node:os";
 import path from "node:path";
 import { closeDatabase, getDb } from "@/db/index";
 import { seedDemo, demoEmail, DEMO_PASSWORD } from "@/db/seed/demo";
+import { ROLES } from "@/lib/server/access";
 import { stopMailFake } from "@/lib/server/mail-fake";
 import type { Role } from "@/db/schema";
 
@@ -68,3 +69,8 @@ export async function signIn(email: string, password = DEMO_PASSWORD): Promise<s
 }
 
 export const signInAs = (role: Role) => signIn(demoEmail(role));
+
+/** Signs in as every demo role, one cookie per role (the set-up most API test files share). */
+export async function signInAll(cookies: Partial<Record<Role, string>>): Promise<void> {
+  for (const r of ROLES) cookies[r] = await signInAs(r);
+}

@@ -1,9 +1,8 @@
 import { afterAll, beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
-import { ROLES } from "@/lib/server/access";
 import type { Role } from "@/db/schema";
 import type { ProfileDetail, ProfilePreview, ProfileSummary } from "@/lib/server/profiles";
-import { params, request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 import { GET as listGet, POST as createPost } from "@/app/api/profiles/route";
 import { POST as previewPost } from "@/app/api/profiles/preview/route";
 import { DELETE as oneDelete, GET as oneGet } from "@/app/api/profiles/[id]/route";
@@ -17,7 +16,7 @@ useTempDatabase();
 const cookies: Partial<Record<Role, string>> = {};
 beforeEach(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterAll(teardown);
 

@@ -10,14 +10,14 @@ import { GET as runGet } from "@/app/api/runs/[id]/route";
 import { POST as runPost } from "@/app/api/runs/route";
 import { POST as statusPost } from "@/app/api/runs/[id]/status/route";
 import { placementProblems } from "../unit/rack/check-placements";
-import { params, request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 import type { Role } from "@/db/schema";
 
 useTempDatabase();
 const cookies: Partial<Record<Role, string>> = {};
 beforeEach(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterAll(teardown);
 
@@ -373,7 +373,9 @@ describe("runs use the saved plan of their part × line", () => {
     expect(started.plan!.racking.partsPerCarrier).toBe(5);
     expect((await del("supervisor", saved.id)).status).toBe(200);
     const after = await readRun(r.id);
-    expect(after.plan!.racking).toMatchObject({ partsPerCarrier: 5, savedPlanId: null });
+    // the run keeps the plan it started with, including where its racking came from
+    expect(after.plan!.racking).toMatchObject({ partsPerCarrier: 5, savedPlanId: saved.id });
+    expect(after.planFrozenAt).not.toBeNull();
     expect(after.plan!.carriers).toBe(24);
   });
 

@@ -3,13 +3,13 @@ import { POST as planPost, type RackPlanResult } from "@/app/api/rack/plan/route
 import { ROLES } from "@/lib/server/access";
 import type { Role } from "@/db/schema";
 import { placementProblems, type CheckedInput } from "../unit/rack/check-placements";
-import { request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 
 useTempDatabase();
 const cookies: Partial<Record<Role, string>> = {};
 beforeAll(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterAll(teardown);
 

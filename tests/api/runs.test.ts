@@ -4,7 +4,7 @@ import { insertRun } from "@/db/queries/runs";
 import { ROLES } from "@/lib/server/access";
 import { epochToDate, nowSeconds } from "@/lib/server/coatings";
 import type { BoardView, RunDetail, RunListItem } from "@/lib/server/runs";
-import { params, request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 import { GET as listGet, POST as listPost } from "@/app/api/runs/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/runs/[id]/route";
 import { POST as statusPost } from "@/app/api/runs/[id]/status/route";
@@ -19,7 +19,7 @@ useTempDatabase();
 const cookies: Partial<Record<Role, string>> = {};
 beforeEach(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterAll(teardown);
 

@@ -3,7 +3,7 @@ import { getDb } from "@/db/index";
 import { ROLES } from "@/lib/server/access";
 import type { ScenarioView } from "@/lib/server/scenarios";
 import type { Role } from "@/db/schema";
-import { params, request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 import { GET as listGet, POST as listPost } from "@/app/api/scenarios/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/scenarios/[id]/route";
 import { POST as duplicatePost } from "@/app/api/scenarios/[id]/duplicate/route";
@@ -13,7 +13,7 @@ useTempDatabase();
 const cookies: Partial<Record<Role, string>> = {};
 beforeEach(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterAll(teardown);
 

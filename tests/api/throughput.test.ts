@@ -3,7 +3,7 @@ import { getDb } from "@/db/index";
 import { ROLES } from "@/lib/server/access";
 import type { Role } from "@/db/schema";
 import type { ThroughputComparison } from "@/lib/server/throughput";
-import { request, resetDatabase, signInAs, teardown, useTempDatabase } from "./helpers";
+import { request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
 import { POST as comparePost } from "@/app/api/throughput/compare/route";
 
 useTempDatabase();
@@ -11,7 +11,7 @@ const cookies: Partial<Record<Role, string>> = {};
 // The comparison writes nothing: one seeded database serves every read; tests that change it reset.
 beforeAll(async () => {
   await resetDatabase();
-  for (const r of ROLES) cookies[r] = await signInAs(r);
+  await signInAll(cookies);
 }, 60_000);
 afterAll(teardown);
 
@@ -236,7 +236,7 @@ describe("POST /api/throughput/compare refuses bad input with 400 naming the fie
 describe("a saved scenario whose speed left its line's range", () => {
   beforeEach(async () => {
     await resetDatabase();
-    for (const r of ROLES) cookies[r] = await signInAs(r);
+    await signInAll(cookies);
   }, 60_000);
 
   it("is refused with 400 naming the item's override, not compared at a speed the line cannot run", async () => {
