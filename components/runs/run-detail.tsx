@@ -168,9 +168,9 @@ export function RunDetailView({ id, parts, unitSystem: sys, currency, canPlan }:
             <h2 id="plan-h">The plan</h2>
             {run.planFrozenAt !== null && (
               <p className="text-sm text-ink-soft" data-testid="plan-frozen-note">
-                Kept as it stood when the run {run.status === "cancelled" ? "was cancelled" : "started"}, on{" "}
-                {new Date(run.planFrozenAt * 1000).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}: later changes to
-                the line, coatings, prices or part do not change these figures.
+                These figures are kept as they stood on{" "}
+                {new Date(run.planFrozenAt * 1000).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}: later changes to the line,
+                coatings, prices or part do not change a run that has started or was cancelled.
               </p>
             )}
             <PlanFacts plan={plan} unitSystem={sys} currency={currency} />

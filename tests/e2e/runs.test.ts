@@ -16,6 +16,7 @@ const consoleErrors = (page: Page) => (page as Page & { consoleErrors?: string[]
 
 /** Today as the browser (and the demo seed, on a UTC machine) sees it. */
 const today = () => new Date().toISOString().slice(0, 10);
+const daysAgo = (n: number) => new Date(Date.now() - n * 86_400_000).toISOString().slice(0, 10);
 
 interface BoardBody {
   board: { shifts: { shift: number; runs: { id: number; part: { number: string } }[] }[] };
@@ -91,6 +92,8 @@ describe("runs, the day board and the run sheet", () => {
     expect(api.run.plan.materialKg).toBeCloseTo(api.run.plan.coats[0].materialKg + api.run.plan.coats[1].materialKg, 9);
     await page.getByRole("button", { name: "Mark planned" }).click();
     await page.getByText("The run is planned.").waitFor();
+    // a planned run follows changes: no kept-plan note
+    expect(await page.getByTestId("plan-frozen-note").count()).toBe(0);
     await page.getByTestId("rack-view").locator("canvas").waitFor({ timeout: 30_000 });
     await shot(page, "run-detail");
 
@@ -169,6 +172,20 @@ describe("runs, the day board and the run sheet", () => {
       expect(pages).toBeGreaterThanOrEqual(1);
       expect(pages).toBeLessThanOrEqual(4);
     }
+    await page.context().close();
+  });
+
+  it("a run that has started says its figures are kept as they stood", async () => {
+    const page = await signInPage(browser, "operator@bramblecote.test");
+    const { runs } = (await (await page.request.get(`${baseUrl()}/api/runs?from=${daysAgo(30)}`)).json()) as { runs: { id: number; status: string }[] };
+    const started = runs.find((r) => r.status === "in-progress");
+    expect(started, "the demo has a run in progress").toBeTruthy();
+    await page.goto(`${baseUrl()}/runs/${started!.id}`);
+    const note = page.getByTestId("plan-frozen-note");
+    await note.waitFor();
+    await shot(page, "run-started-kept-plan");
+    expect(await note.textContent()).toMatch(/^These figures are kept as they stood on .+: later changes to the line, coatings, prices or part do not change a run that has started or was cancelled\.$/);
+    expect(consoleErrors(page)).toEqual([]);
     await page.context().close();
   });
 
