@@ -1,9 +1,8 @@
 import fs from "node:fs";
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { actionAccess, allows, apiAccess, ROLES, type Method } from "@/lib/server/access";
-import { request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
-import type { Role } from "@/db/schema";
+import { request, useSignedInDemo } from "./helpers";
 
 /*
  * Drives the declared access table: every route handler file under app/api and every server
@@ -24,13 +23,7 @@ const routePath = (file: string) => "/" + path.relative(path.join(root, "app"), 
 const exampleUrl = (p: string) => p.replace(/\[(\w+)\]/g, "no-such-$1");
 const exampleParams = (p: string) => Object.fromEntries([...p.matchAll(/\[(\w+)\]/g)].map((m) => [m[1], `no-such-${m[1]}`]));
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeAll(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo("once");
 
 describe("access table covers every route handler and server action", () => {
   it.each(routeFiles.map((f) => [routePath(f), f]))("%s has a row for each exported method", async (p, file) => {

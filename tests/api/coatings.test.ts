@@ -1,23 +1,17 @@
-import { afterAll, afterEach, beforeEach, describe, expect, it } from "vitest";
+import { afterEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import { ROLES } from "@/lib/server/access";
 import { coatingUsageChecks, type CoatingView } from "@/lib/server/coatings";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import { GET as listGet, POST as listPost } from "@/app/api/coatings/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/coatings/[id]/route";
 import { POST as lotPost } from "@/app/api/coatings/[id]/lots/route";
 import type { Role } from "@/db/schema";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
+const cookies = useSignedInDemo();
 afterEach(() => {
   coatingUsageChecks.length = 0;
 });
-afterAll(teardown);
 
 const editors: Role[] = ["admin", "purchaser"];
 const readers: Role[] = ["manager", "supervisor", "engineer", "operator"];

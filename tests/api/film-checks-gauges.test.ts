@@ -1,19 +1,13 @@
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import type { GaugeView } from "@/lib/server/film-checks";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import { GET as listGet, POST as listPost } from "@/app/api/gauges/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/gauges/[id]/route";
 import { POST as checkPost } from "@/app/api/runs/[id]/film-checks/route";
 import type { Role } from "@/db/schema";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo();
 
 const DAY_S = 86_400;
 const isoDay = (s: number) => new Date(s * 1000).toISOString().slice(0, 10);

@@ -1,18 +1,12 @@
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import type { FilmCheckView, RunFilmChecks } from "@/lib/server/film-checks";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import { GET as runGet, POST as runPost } from "@/app/api/runs/[id]/film-checks/route";
 import { DELETE as oneDelete, PUT as onePut } from "@/app/api/film-checks/[id]/route";
 import type { Role } from "@/db/schema";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo();
 
 /** Today's in-progress fender run and its seeded e-coat check (2 areas of 5 spots of 3 readings). */
 async function seeded(): Promise<{ runId: number; checkId: number; areas: number[][][]; gaugeId: number }> {

@@ -1,7 +1,7 @@
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import { measuredFilmUm, type FilmCheckView, type RunFilmChecks } from "@/lib/server/film-checks";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import { GET as runGet, POST as runPost } from "@/app/api/runs/[id]/film-checks/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/film-checks/[id]/route";
 import { GET as testsGet, POST as testsPost } from "@/app/api/runs/[id]/tests/route";
@@ -9,13 +9,7 @@ import { GET as gaugesGet, POST as gaugesPost } from "@/app/api/gauges/route";
 import { GET as trendGet } from "@/app/api/quality/trend/route";
 import type { Role } from "@/db/schema";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo();
 
 /** Today's in-progress fender run: coat 0 EC-200 (18–25 µm), coat 1 PP-430 (60–90 µm). */
 async function fenderRunId(): Promise<number> {

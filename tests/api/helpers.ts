@@ -1,6 +1,7 @@
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
+import { afterAll, beforeAll, beforeEach } from "vitest";
 import { closeDatabase, getDb } from "@/db/index";
 import { seedDemo, demoEmail, DEMO_PASSWORD } from "@/db/seed/demo";
 import { ROLES } from "@/lib/server/access";
@@ -73,4 +74,19 @@ export const signInAs = (role: Role) => signIn(demoEmail(role));
 /** Signs in as every demo role, one cookie per role (the set-up most API test files share). */
 export async function signInAll(cookies: Partial<Record<Role, string>>): Promise<void> {
   for (const r of ROLES) cookies[r] = await signInAs(r);
+}
+
+/**
+ * The set-up most API test files share: their own database with the demo data, reset before
+ * each test ("each") or once for the file ("once"), and one session cookie per role.
+ */
+export function useSignedInDemo(reset: "each" | "once" = "each"): Partial<Record<Role, string>> {
+  useTempDatabase();
+  const cookies: Partial<Record<Role, string>> = {};
+  (reset === "each" ? beforeEach : beforeAll)(async () => {
+    await resetDatabase();
+    await signInAll(cookies);
+  }, 60_000);
+  afterAll(teardown);
+  return cookies;
 }

@@ -1,8 +1,8 @@
-import { afterAll, afterEach, beforeEach, describe, expect, it } from "vitest";
+import { afterEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import { ROLES } from "@/lib/server/access";
 import { lineUsageChecks, type ConveyorLineView, type LineView } from "@/lib/server/lines";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import { GET as listGet, POST as listPost } from "@/app/api/lines/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/lines/[id]/route";
 import { GET as timelineGet } from "@/app/api/lines/[id]/timeline/route";
@@ -10,16 +10,10 @@ import { POST as cureCheckPost } from "@/app/api/lines/[id]/cure-check/route";
 import { POST as coatingPost } from "@/app/api/coatings/route";
 import type { Role } from "@/db/schema";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
+const cookies = useSignedInDemo();
 afterEach(() => {
   lineUsageChecks.length = 0;
 });
-afterAll(teardown);
 
 const editors: Role[] = ["admin", "manager"];
 const readers: Role[] = ["supervisor", "engineer", "purchaser", "operator"];

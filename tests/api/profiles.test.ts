@@ -1,8 +1,8 @@
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import type { Role } from "@/db/schema";
 import type { ProfileDetail, ProfilePreview, ProfileSummary } from "@/lib/server/profiles";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import { GET as listGet, POST as createPost } from "@/app/api/profiles/route";
 import { POST as previewPost } from "@/app/api/profiles/preview/route";
 import { DELETE as oneDelete, GET as oneGet } from "@/app/api/profiles/[id]/route";
@@ -12,13 +12,7 @@ import { GET as lineGet, PUT as linePut } from "@/app/api/lines/[id]/route";
 import { POST as cureCheckPost } from "@/app/api/lines/[id]/cure-check/route";
 import { demoProfile, toCsv } from "../unit/profiles/synthetic-profile";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo();
 
 const LINE1 = "Line 1 — E-coat and powder";
 const LOGGER = "Logger 7 (SN 40217)";

@@ -1,4 +1,4 @@
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import { ROLES } from "@/lib/server/access";
 import { epochToDate, nowSeconds } from "@/lib/server/coatings";
@@ -10,16 +10,10 @@ import { GET as runGet } from "@/app/api/runs/[id]/route";
 import { POST as runPost } from "@/app/api/runs/route";
 import { POST as statusPost } from "@/app/api/runs/[id]/status/route";
 import { placementProblems } from "../unit/rack/check-placements";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import type { Role } from "@/db/schema";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo();
 
 const LINE1 = "Line 1 — E-coat and powder";
 const LINE2 = "Line 2 — Powder only";

@@ -1,17 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { POST as planPost, type RackPlanResult } from "@/app/api/rack/plan/route";
 import { ROLES } from "@/lib/server/access";
 import type { Role } from "@/db/schema";
 import { placementProblems, type CheckedInput } from "../unit/rack/check-placements";
-import { request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { request, useSignedInDemo } from "./helpers";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeAll(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo("once");
 
 function plan(body: unknown, role: Role = "supervisor", headers?: Record<string, string>) {
   return planPost(request("/api/rack/plan", { method: "POST", body, cookie: cookies[role], headers }));

@@ -1,24 +1,17 @@
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import { epochToDate, nowSeconds } from "@/lib/server/coatings";
 import { freezeStartedRuns, type RunDetail } from "@/lib/server/runs";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import { POST as listPost } from "@/app/api/runs/route";
 import { GET as oneGet } from "@/app/api/runs/[id]/route";
 import { POST as statusPost } from "@/app/api/runs/[id]/status/route";
-import type { Role } from "@/db/schema";
 
 // common practice, no source: a job that has been run keeps the plan and the costs it was run
 // at (job costing records cost when the work is done); later price or line changes apply to
 // jobs not yet started.
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo();
 
 const inDays = (n: number) => epochToDate(nowSeconds() + n * 86_400);
 const idOf = async (table: "lines" | "coatings" | "parts", column: "name" | "code" | "number", value: string) =>

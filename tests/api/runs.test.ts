@@ -1,10 +1,10 @@
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import { insertRun } from "@/db/queries/runs";
 import { ROLES } from "@/lib/server/access";
 import { epochToDate, nowSeconds } from "@/lib/server/coatings";
 import type { BoardView, RunDetail, RunListItem } from "@/lib/server/runs";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import { GET as listGet, POST as listPost } from "@/app/api/runs/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/runs/[id]/route";
 import { POST as statusPost } from "@/app/api/runs/[id]/status/route";
@@ -15,13 +15,7 @@ import { DELETE as coatingDelete } from "@/app/api/coatings/[id]/route";
 import { DELETE as lineDelete } from "@/app/api/lines/[id]/route";
 import type { Role } from "@/db/schema";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo();
 
 const LINE1 = "Line 1 — E-coat and powder";
 const LINE2 = "Line 2 — Powder only";

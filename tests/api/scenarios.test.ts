@@ -1,21 +1,15 @@
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getDb } from "@/db/index";
 import { ROLES } from "@/lib/server/access";
 import type { ScenarioView } from "@/lib/server/scenarios";
 import type { Role } from "@/db/schema";
-import { params, request, resetDatabase, signInAll, teardown, useTempDatabase } from "./helpers";
+import { params, request, useSignedInDemo } from "./helpers";
 import { GET as listGet, POST as listPost } from "@/app/api/scenarios/route";
 import { DELETE as oneDelete, GET as oneGet, PUT as onePut } from "@/app/api/scenarios/[id]/route";
 import { POST as duplicatePost } from "@/app/api/scenarios/[id]/duplicate/route";
 import { DELETE as lineDelete } from "@/app/api/lines/[id]/route";
 
-useTempDatabase();
-const cookies: Partial<Record<Role, string>> = {};
-beforeEach(async () => {
-  await resetDatabase();
-  await signInAll(cookies);
-}, 60_000);
-afterAll(teardown);
+const cookies = useSignedInDemo();
 
 const LINE1 = "Line 1 — E-coat and powder";
 const LINE2 = "Line 2 — Powder only";
