@@ -1,7 +1,8 @@
 "use client";
 // Import a CSV part list: the server checks every row first (nothing written) and marks each bad
 // row with its number and reason. "Import all" is refused while any row is bad; importing only
-// the valid rows is a separate, explicit button. Either way it is one transaction.
+// the valid rows is a separate, explicit button. Either way it is one transaction. A row whose
+// part number is already in the catalogue is marked, unless the user chooses to update those parts.
 
 import Link from "next/link";
 import { useId, useState } from "react";
@@ -11,9 +12,14 @@ import { showArea, showMass, type UnitSystem } from "./part-units";
 
 type Refusal = { message: string; problems?: string[]; rows?: PartsImportResult["rows"] };
 
-async function post(file: File, mode: "preview" | "all" | "valid-only"): Promise<{ ok: true; result: PartsImportResult } | { ok: false; refusal: Refusal }> {
+async function post(
+  file: File,
+  mode: "preview" | "all" | "valid-only",
+  update: boolean,
+): Promise<{ ok: true; result: PartsImportResult } | { ok: false; refusal: Refusal }> {
   const form = new FormData();
   form.append("mode", mode);
+  form.append("existing", update ? "update" : "refuse");
   form.append("file", file);
   const res = await fetch("/api/parts/import", { method: "POST", body: form, headers: { accept: "application/json" } });
   const body = (await res.json().catch(() => null)) as (PartsImportResult & { error?: Refusal }) | null;
@@ -29,14 +35,15 @@ export function PartsImport({ unitSystem, columns }: { unitSystem: UnitSystem; c
   const [refusal, setRefusal] = useState<Refusal | null>(null);
   const [done, setDone] = useState<PartsImportResult | null>(null);
   const [busy, setBusy] = useState<null | "preview" | "all" | "valid-only">(null);
+  const [update, setUpdate] = useState(false);
 
-  async function check(f: File) {
+  async function check(f: File, updating = update) {
     setFile(f);
     setPreview(null);
     setRefusal(null);
     setDone(null);
     setBusy("preview");
-    const r = await post(f, "preview").catch((e: Error) => ({ ok: false as const, refusal: { message: e.message } }));
+    const r = await post(f, "preview", updating).catch((e: Error) => ({ ok: false as const, refusal: { message: e.message } }));
     setBusy(null);
     if (r.ok) setPreview(r.result);
     else setRefusal(r.refusal);
@@ -46,7 +53,7 @@ export function PartsImport({ unitSystem, columns }: { unitSystem: UnitSystem; c
     if (!file) return;
     setRefusal(null);
     setBusy(mode);
-    const r = await post(file, mode).catch((e: Error) => ({ ok: false as const, refusal: { message: e.message } }));
+    const r = await post(file, mode, update).catch((e: Error) => ({ ok: false as const, refusal: { message: e.message } }));
     setBusy(null);
     if (r.ok) {
       setDone(r.result);
@@ -81,6 +88,27 @@ export function PartsImport({ unitSystem, columns }: { unitSystem: UnitSystem; c
             name=mm pairs, e.g. <code>lengthMm=1200;widthMm=50;thicknessMm=3</code>. An exported catalogue is a ready example.
           </p>
         </div>
+        <div className="flex items-start gap-2">
+          <input
+            id={`${id}-update`}
+            type="checkbox"
+            className="mt-1"
+            checked={update}
+            disabled={busy !== null}
+            aria-describedby={`${id}-update-help`}
+            onChange={(e) => {
+              setUpdate(e.target.checked);
+              if (file) void check(file, e.target.checked);
+            }}
+          />
+          <div>
+            <label htmlFor={`${id}-update`} className="text-sm font-medium">Update parts already in the catalogue</label>
+            <p id={`${id}-update-help`} className="text-xs text-ink-faint">
+              Rows are matched by part number. A matched part takes the row&rsquo;s values; runs and racking plans keep pointing at it, and runs that
+              have started keep the figures they started with. Unticked, such rows are marked as problems.
+            </p>
+          </div>
+        </div>
         {busy === "preview" && <p role="status" className="text-sm text-ink-soft">Checking every row…</p>}
       </section>
 
@@ -94,6 +122,7 @@ export function PartsImport({ unitSystem, columns }: { unitSystem: UnitSystem; c
       {done && (
         <p role="status" className="rounded-md border border-pass bg-pass-light p-3 text-sm" data-testid="import-done">
           Imported {done.importedCount} part{done.importedCount === 1 ? "" : "s"}
+          {done.updateCount > 0 ? ` (${done.createCount} new, ${done.updateCount} updated)` : ""}
           {done.invalidCount > 0 ? `; ${done.invalidCount} row${done.invalidCount === 1 ? " was" : "s were"} left out` : ""}.{" "}
           <Link className="text-phosphate-dark underline" href="/parts">Back to the catalogue</Link>
         </p>
@@ -105,6 +134,7 @@ export function PartsImport({ unitSystem, columns }: { unitSystem: UnitSystem; c
             <h2 id={`${id}-preview`}>Preview of {file?.name}</h2>
             <p className="text-sm" data-testid="import-summary">
               {preview.rows.length} row{preview.rows.length === 1 ? "" : "s"}: <span className="text-pass">{preview.validCount} valid</span>
+              {preview.updateCount > 0 && ` (${preview.createCount} new, ${preview.updateCount} updating a part)`}
               {preview.invalidCount > 0 && (
                 <>
                   , <span className="text-oxide">{preview.invalidCount} with problems</span>
@@ -141,7 +171,7 @@ export function PartsImport({ unitSystem, columns }: { unitSystem: UnitSystem; c
                     <td className="num py-1.5 pr-3 whitespace-nowrap">{r.massKg !== null ? showMass(r.massKg, unitSystem, 3) : "—"}</td>
                     <td className="py-1.5 pr-3">
                       {r.valid ? (
-                        <span className="text-pass">OK</span>
+                        <span className="text-pass">{r.action === "update" ? "OK, updates this part" : "OK, new part"}</span>
                       ) : (
                         <ul className="text-oxide">
                           {Object.entries(r.errors).map(([field, message]) => (

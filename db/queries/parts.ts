@@ -20,21 +20,22 @@ export function findPartByNumber(db: Db, number: string): Promise<PartRow | unde
   return db.selectFrom("parts").selectAll().where((eb) => eb(eb.fn("lower", ["number"]), "=", number.toLowerCase())).executeTakeFirst();
 }
 
-/** Lower-cased numbers of every part, for checking a whole import at once. */
-export async function allPartNumbers(db: Db): Promise<Set<string>> {
-  const rows = await db.selectFrom("parts").select("number").execute();
-  return new Set(rows.map((r) => r.number.toLowerCase()));
+/** Every part's id by its lower-cased number (archived ones too), for checking a whole import at once. */
+export async function partIdsByNumber(db: Db): Promise<Map<string, string>> {
+  const rows = await db.selectFrom("parts").select(["id", "number"]).execute();
+  return new Map(rows.map((r) => [r.number.toLowerCase(), r.id]));
 }
 
 export async function insertPart(db: Db, row: NewPartRow): Promise<void> {
   await db.insertInto("parts").values(row).execute();
 }
 
-/** Inserts all rows in one transaction: all or none. */
-export async function insertParts(db: Db, rows: NewPartRow[]): Promise<void> {
-  if (!rows.length) return;
+/** Inserts `rows` and applies `updates` in one transaction: all or none. */
+export async function writeParts(db: Db, rows: NewPartRow[], updates: { id: string; patch: Updateable<PartsTable> }[] = []): Promise<void> {
+  if (!rows.length && !updates.length) return;
   await db.transaction().execute(async (trx) => {
     for (const row of rows) await trx.insertInto("parts").values(row).execute();
+    for (const u of updates) await trx.updateTable("parts").set(u.patch).where("id", "=", u.id).execute();
   });
 }
 

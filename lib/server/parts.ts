@@ -7,11 +7,11 @@ import { randomUUID } from "node:crypto";
 import Papa from "papaparse";
 import { getDb, type Db } from "@/db/index";
 import {
-  allPartNumbers,
+  partIdsByNumber,
+  writeParts,
   findPartByNumber,
   findPartRow,
   insertPart,
-  insertParts,
   listPartRows,
   updatePart,
   type NewPartRow,
@@ -24,7 +24,7 @@ import { MM_PER_M } from "@/lib/geometry/length-units";
 import { DENSITY_KG_PER_M3, massFromVolumeKg, netCoatedAreaM2, plateMassKg, type Material } from "@/lib/geometry/mass";
 import { DIMENSION_TEMPLATES, findTemplate } from "@/lib/geometry/templates";
 import { MASS_ORIGINS, type AreaOrigin, type MassOrigin, type PartMaterial } from "@/lib/parts/part-fields";
-import { IMPORT_MAX_ROWS, partInputSchema, type ImportMode, type PartInput, type PartMeasureInput } from "@/lib/validation/parts";
+import { IMPORT_MAX_ROWS, partInputSchema, type ImportExisting, type ImportMode, type PartInput, type PartMeasureInput } from "@/lib/validation/parts";
 import { ApiError, isUniqueViolation, zodFields } from "./http";
 import { findMesh, type MeshView } from "./meshes";
 
@@ -467,6 +467,8 @@ export interface ImportRowReport {
   valid: boolean;
   /** field → what is wrong */
   errors: Record<string, string>;
+  /** a new part, or an update of the part with this number (existing: "update") */
+  action: "create" | "update";
   areaM2: number | null;
   coatedAreaM2: number | null;
   massKg: number | null;
@@ -474,9 +476,13 @@ export interface ImportRowReport {
 
 export interface ImportResult {
   mode: ImportMode;
+  existing: ImportExisting;
   /** true when the rows were written */
   imported: boolean;
   importedCount: number;
+  /** of the valid rows: new parts and updated ones */
+  createCount: number;
+  updateCount: number;
   validCount: number;
   invalidCount: number;
   /** problems with the file as a whole (unknown columns, unreadable CSV); they block any import */
@@ -563,10 +569,11 @@ function unknownColumns(rows: Record<string, unknown>[]): string[] {
 interface CheckedRow {
   report: ImportRowReport;
   insert: NewPartRow | null;
+  update: { id: string; patch: Omit<NewPartRow, "id" | "created_at"> } | null;
 }
 
-async function checkRows(db: Db, rows: Record<string, unknown>[], rowErrors: Map<number, string>): Promise<CheckedRow[]> {
-  const existing = await allPartNumbers(db);
+async function checkRows(db: Db, rows: Record<string, unknown>[], rowErrors: Map<number, string>, onExisting: ImportExisting): Promise<CheckedRow[]> {
+  const existing = await partIdsByNumber(db);
   const firstRowOf = new Map<string, number>();
   const t = nowSeconds();
   const out: CheckedRow[] = [];
@@ -577,9 +584,12 @@ async function checkRows(db: Db, rows: Record<string, unknown>[], rowErrors: Map
     if (csvProblem) errors.row = csvProblem;
     const number = typeof value.number === "string" ? value.number : "";
     const name = typeof value.name === "string" ? value.name : "";
+    const existingId = number ? existing.get(number.toLowerCase()) : undefined;
     if (number) {
       const key = number.toLowerCase();
-      if (existing.has(key)) errors.number ??= `A part numbered ${number} is already in the catalogue.`;
+      if (existingId !== undefined && onExisting === "refuse") {
+        errors.number ??= `A part numbered ${number} is already in the catalogue; choose to update existing parts to change it.`;
+      }
       const first = firstRowOf.get(key);
       if (first !== undefined) errors.number ??= `Part number ${number} is also on row ${first}.`;
       else firstRowOf.set(key, rowNo);
@@ -599,6 +609,7 @@ async function checkRows(db: Db, rows: Record<string, unknown>[], rowErrors: Map
       }
     }
     const valid = Object.keys(errors).length === 0 && input !== null && measure !== null;
+    const action = existingId !== undefined ? "update" : "create";
     out.push({
       report: {
         row: rowNo,
@@ -606,13 +617,18 @@ async function checkRows(db: Db, rows: Record<string, unknown>[], rowErrors: Map
         name,
         valid,
         errors,
+        action,
         areaM2: measure?.areaM2 ?? null,
         coatedAreaM2: measure?.coatedAreaM2 ?? null,
         massKg: measure?.massKg ?? null,
       },
       insert:
-        valid && input && measure
+        valid && input && measure && action === "create"
           ? { id: randomUUID(), ...rowValues(input, measure), archived: input.archived ? 1 : 0, created_at: t, updated_at: t }
+          : null,
+      update:
+        valid && input && measure && existingId !== undefined
+          ? { id: existingId, patch: { ...rowValues(input, measure), archived: input.archived ? 1 : 0, updated_at: t } }
           : null,
     });
   }
@@ -621,9 +637,18 @@ async function checkRows(db: Db, rows: Record<string, unknown>[], rowErrors: Map
 
 /**
  * Checks every row; writes nothing in "preview", everything only when every row is valid in
- * "all", and the valid rows only in "valid-only" (an explicit choice). One transaction.
+ * "all", and the valid rows only in "valid-only" (an explicit choice). One transaction. A row
+ * whose number is already in the catalogue is refused, or with `existing: "update"` replaces
+ * that part's values (its id stays, so runs and racking plans keep pointing at it; runs that
+ * have started keep their own frozen figures).
  */
-export async function importParts(rows: Record<string, unknown>[], mode: ImportMode, fileProblems: string[] = [], rowErrors = new Map<number, string>()): Promise<ImportResult> {
+export async function importParts(
+  rows: Record<string, unknown>[],
+  mode: ImportMode,
+  fileProblems: string[] = [],
+  rowErrors = new Map<number, string>(),
+  existing: ImportExisting = "refuse",
+): Promise<ImportResult> {
   const db = await getDb();
   const problems = [...fileProblems];
   const unknown = unknownColumns(rows);
@@ -634,12 +659,15 @@ export async function importParts(rows: Record<string, unknown>[], mode: ImportM
   }
   if (rows.length === 0) problems.push("The file has no rows under its header line.");
   if (rows.length > IMPORT_MAX_ROWS) problems.push(`At most ${IMPORT_MAX_ROWS} rows at a time; the file has ${rows.length}.`);
-  const checked = rows.length > IMPORT_MAX_ROWS ? [] : await checkRows(db, rows, rowErrors);
-  const validRows = checked.filter((c) => c.insert !== null);
+  const checked = rows.length > IMPORT_MAX_ROWS ? [] : await checkRows(db, rows, rowErrors, existing);
+  const validRows = checked.filter((c) => c.insert !== null || c.update !== null);
   const result: ImportResult = {
     mode,
+    existing,
     imported: false,
     importedCount: 0,
+    createCount: validRows.filter((c) => c.insert !== null).length,
+    updateCount: validRows.filter((c) => c.update !== null).length,
     validCount: validRows.length,
     invalidCount: checked.length - validRows.length,
     problems,
@@ -649,7 +677,11 @@ export async function importParts(rows: Record<string, unknown>[], mode: ImportM
   const blocked = problems.length > 0 || (mode === "all" ? result.invalidCount > 0 : validRows.length === 0);
   if (blocked) throw new ImportRefused(result);
   try {
-    await insertParts(db, validRows.map((c) => c.insert!));
+    await writeParts(
+      db,
+      validRows.flatMap((c) => (c.insert ? [c.insert] : [])),
+      validRows.flatMap((c) => (c.update ? [c.update] : [])),
+    );
   } catch (e) {
     if (isUniqueViolation(e)) throw new ApiError(409, "conflict", "Another part with one of these numbers was saved meanwhile; nothing was imported. Check the file again.");
     throw e;
@@ -724,7 +756,7 @@ export function parsePartsCsv(text: string): { rows: Record<string, string>[]; p
 const CSV_MAX_BYTES = 2 * 1024 * 1024;
 
 /** Reads a multipart body of at most 2 MB: the CSV `file` and the optional `mode`. */
-export async function readCsvUpload(request: Request): Promise<{ text: string; mode: ImportMode }> {
+export async function readCsvUpload(request: Request): Promise<{ text: string; mode: ImportMode; existing: ImportExisting }> {
   const tooLarge = () => new ApiError(413, "too_large", "The CSV file is larger than 2 MB; split it into smaller files.", { file: "At most 2 MB." });
   if (Number(request.headers.get("content-length")) > CSV_MAX_BYTES + 64 * 1024) {
     await request.body?.cancel().catch(() => undefined);
@@ -756,7 +788,10 @@ export async function readCsvUpload(request: Request): Promise<{ text: string; m
   const modeText = form.get("mode");
   const mode = modeText === null || modeText === "" ? "preview" : String(modeText);
   if (mode !== "preview" && mode !== "all" && mode !== "valid-only") throw invalid("mode", 'mode is "preview", "all" or "valid-only".');
+  const existingText = form.get("existing");
+  const existing = existingText === null || existingText === "" ? "refuse" : String(existingText);
+  if (existing !== "refuse" && existing !== "update") throw invalid("existing", 'existing is "refuse" or "update".');
   const bytes = new Uint8Array(await file.arrayBuffer());
   if (bytes.includes(0)) throw invalid("file", "The file is not a CSV text file.");
-  return { text: new TextDecoder("utf-8").decode(bytes), mode };
+  return { text: new TextDecoder("utf-8").decode(bytes), mode, existing };
 }

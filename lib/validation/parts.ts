@@ -130,6 +130,9 @@ export const meshUnitSchema = z
 export const IMPORT_MODES = ["preview", "all", "valid-only"] as const;
 export type ImportMode = (typeof IMPORT_MODES)[number];
 export const IMPORT_MAX_ROWS = 2000;
+/** What a row whose part number is already in the catalogue does: refused, or updates that part. */
+export const IMPORT_EXISTING = ["refuse", "update"] as const;
+export type ImportExisting = (typeof IMPORT_EXISTING)[number];
 
 /** POST /api/parts/import as JSON: rows as a CSV reader gives them (strings) or typed values. */
 export const partImportSchema = z
@@ -141,6 +144,7 @@ export const partImportSchema = z
         })
         .max(IMPORT_MAX_ROWS, `At most ${IMPORT_MAX_ROWS} rows at a time.`),
       mode: z.enum(IMPORT_MODES, { error: 'mode is "preview", "all" or "valid-only".' }).default("preview"),
+      existing: z.enum(IMPORT_EXISTING, { error: 'existing is "refuse" or "update".' }).default("refuse"),
     },
     objectParams,
   )

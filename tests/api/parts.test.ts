@@ -466,6 +466,51 @@ describe("CSV export and import", () => {
     }
   });
 
+  it("with existing \"update\", a row whose number is in the catalogue updates that part in place; new numbers are created", async () => {
+    const db = await getDb();
+    const target = await db.selectFrom("parts").selectAll().where("number", "=", "BC-1042").executeTakeFirstOrThrow();
+    const rows = [
+      // lower case on purpose: numbers match without regard to case
+      csvRow({ number: "bc-1042", name: "Renamed bracket", areaM2: "0.75" }),
+      csvRow({ number: "UP-1", name: "Brand new" }),
+    ];
+    // refused by default, with the way out named
+    const refused = await json<ImportBody>(await importJson(rows, "preview"));
+    expect(refused.rows[0].errors.number).toMatch(/already in the catalogue; choose to update existing parts/);
+
+    const update = (mode: string, body: unknown[] = rows) =>
+      importPost(request("/api/parts/import", { method: "POST", cookie: engineer, body: { rows: body, mode, existing: "update" } }));
+    const preview = await json<Omit<ImportBody, "rows"> & { createCount: number; updateCount: number; rows: (ImportRow & { action: string })[] }>(await update("preview"));
+    expect(preview).toMatchObject({ validCount: 2, invalidCount: 0, createCount: 1, updateCount: 1 });
+    expect(preview.rows.map((r) => r.action)).toEqual(["update", "create"]);
+    const before = await countParts();
+    const res = await update("all");
+    expect(res.status).toBe(200);
+    expect(await json<ImportBody>(res)).toMatchObject({ imported: true, importedCount: 2 });
+    expect(await countParts()).toBe(before + 1);
+    const after = await db.selectFrom("parts").selectAll().where("id", "=", target.id).executeTakeFirstOrThrow();
+    expect(after).toMatchObject({ number: "bc-1042", name: "Renamed bracket", area_m2: 0.75, created_at: target.created_at });
+    expect(after.updated_at).toBeGreaterThanOrEqual(target.updated_at);
+
+    // all or nothing still: one bad row and neither the update nor the new part is written
+    const again = await update("all", [csvRow({ number: "BC-1042", name: "Should not land" }), csvRow({ number: "UP-2", thicknessMm: "thick" })]);
+    expect(again.status).toBe(400);
+    expect((await db.selectFrom("parts").select("name").where("id", "=", target.id).executeTakeFirstOrThrow()).name).toBe("Renamed bracket");
+    expect(await countParts()).toBe(before + 1);
+  });
+
+  it("a bad \"existing\" value is a 400 naming the field, as JSON and as a form", async () => {
+    const asJson = await importPost(request("/api/parts/import", { method: "POST", cookie: engineer, body: { rows: [], mode: "preview", existing: "merge" } }));
+    expect(asJson.status).toBe(400);
+    expect((await json<ErrorBody>(asJson)).error.fields?.existing).toMatch(/"refuse" or "update"/);
+    const form = new FormData();
+    form.append("file", new File(["number,name\nX-1,Thing\n"], "parts.csv", { type: "text/csv" }));
+    form.append("existing", "merge");
+    const asForm = await importPost(new Request(`${BASE}/api/parts/import`, { method: "POST", body: form, headers: { cookie: engineer } }));
+    expect(asForm.status).toBe(400);
+    expect((await json<ErrorBody>(asForm)).error.fields?.existing).toMatch(/"refuse" or "update"/);
+  });
+
   it("operators may export but not import", async () => {
     const res = await importPost(request("/api/parts/import", { method: "POST", cookie: operator, body: { rows: [], mode: "all" } }));
     expect(res.status).toBe(403);

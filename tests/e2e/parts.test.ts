@@ -195,6 +195,23 @@ describe("parts catalogue", () => {
     await expect.poll(() => page.getByTestId("import-done").textContent(), { timeout: 15_000 }).toMatch(/Imported 2 parts; 1 row was left out/);
     expect(await partCount(page)).toBe(before + 2);
     await shot(page, "parts-import-done");
+
+    // the same file again: the two imported numbers are now taken, until updating is ticked
+    await page.reload();
+    const fixed = csv.replace("CSV-1,Gate hinge plate", "CSV-1,Gate hinge plate (heavy)").replace("manual,-0.2", "manual,0.02");
+    fs.writeFileSync(file, fixed);
+    await page.getByLabel("CSV file").setInputFiles(file);
+    await expect.poll(() => page.getByTestId("import-summary").textContent(), { timeout: 15_000 }).toMatch(/3 rows: 1 valid, 2 with problems/);
+    await expect.poll(() => page.locator("[data-testid=import-rows] tr[data-row='2']").textContent(), { timeout: 15_000 }).toMatch(/already in the catalogue/);
+    await page.getByLabel("Update parts already in the catalogue").check();
+    await expect.poll(() => page.getByTestId("import-summary").textContent(), { timeout: 15_000 }).toMatch(/3 rows: 3 valid \(1 new, 2 updating a part\)/);
+    await expect.poll(() => page.locator("[data-testid=import-rows] tr[data-row='2']").textContent(), { timeout: 15_000 }).toMatch(/OK, updates this part/);
+    await shot(page, "parts-import-update-preview");
+    await page.getByRole("button", { name: "Import all 3 rows" }).click();
+    await expect.poll(() => page.getByTestId("import-done").textContent(), { timeout: 15_000 }).toMatch(/Imported 3 parts \(1 new, 2 updated\)/);
+    expect(await partCount(page)).toBe(before + 3);
+    const { parts } = (await (await page.request.get(`${baseUrl()}/api/parts`)).json()) as { parts: { number: string; name: string }[] };
+    expect(parts.find((p) => p.number === "CSV-1")?.name).toBe("Gate hinge plate (heavy)");
     await page.context().close();
   });
 
