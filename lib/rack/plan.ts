@@ -17,6 +17,7 @@
 // because that grid is always a candidate.
 
 import { checkRackInput } from "./check-input";
+import { rackReason } from "./explain";
 import { bestSingleGrid, wholeTimes } from "./grid";
 import { searchBlocks, type Layout } from "./guillotine";
 import { allowedOrientations, toTriple } from "./orientations";
@@ -143,46 +144,19 @@ function buildPlan(prep: Prepared, layout: Layout): RackPlan {
     count,
     spaceCount,
     limitedBy,
-    reason: explain(prep, layout, count, limitedBy),
+    reason: rackReason({
+      part: prep.input.part,
+      windowMm: prep.windowMm,
+      maxLoadKg: prep.input.carrier.maxLoadKg,
+      clearanceMm: prep.input.clearanceMm,
+      orientations: prep.input.orientations,
+      orientation: prep.input.orientation,
+      count,
+      spaceCount,
+      limitedBy,
+      blocks: layout.blocks,
+    }),
     blocks,
     placements: kept.map((k) => k.placement),
   };
-}
-
-function formatNumber(value: number): string {
-  return String(Number(value.toFixed(2)));
-}
-
-function plural(n: number, one: string, many: string): string {
-  return `${n} ${n === 1 ? one : many}`;
-}
-
-function explain(prep: Prepared, layout: Layout, count: number, limitedBy: "space" | "load"): string {
-  const { part, carrier, clearanceMm, orientations, orientation } = prep.input;
-  const spaceCount = layout.count;
-  if (spaceCount === 0) {
-    const partText = [part.lengthMm, part.widthMm, part.heightMm].map(formatNumber).join(" × ");
-    const windowText = prep.windowMm.map(formatNumber).join(" × ");
-    const which = orientation
-      ? "in the chosen orientation"
-      : orientations === "upright"
-        ? "in every upright orientation"
-        : "in every orientation";
-    return `The part (${partText} mm) is larger than the ${windowText} mm window ${which}.`;
-  }
-  const loadText = `${formatNumber(carrier.maxLoadKg)} kg`;
-  if (limitedBy === "load") {
-    if (count === 0) {
-      return `The ${loadText} load limit is below one part's mass (${formatNumber(part.massKg)} kg), so the carrier can take none of the ${spaceCount} parts that fit.`;
-    }
-    return `The ${loadText} load limit allows ${count} of the ${spaceCount} parts that fit.`;
-  }
-  const [main, ...rest] = layout.blocks;
-  const gridText = `${main.grid[0]} along travel × ${plural(main.grid[1], "tier", "tiers")} × ${main.grid[2]} across`;
-  const clearanceText =
-    clearanceMm > 0 ? `${formatNumber(clearanceMm)} mm clearance` : "no clearance";
-  const head = `Space limits the carrier to ${plural(spaceCount, "part", "parts")}`;
-  if (rest.length === 0) return `${head}: ${gridText}, ${clearanceText}.`;
-  const mainCount = main.grid[0] * main.grid[1] * main.grid[2];
-  return `${head}: a main grid of ${gridText} (${mainCount}) and ${spaceCount - mainCount} more in ${plural(rest.length, "further block", "further blocks")} filling the space left, ${clearanceText}.`;
 }
