@@ -29,6 +29,8 @@ import {
 } from "@/db/queries/runs";
 import { DomainError } from "@/lib/coating-math/errors";
 import { formatSignificant } from "@/lib/coating-math/units";
+import { formatQuantity, type UnitSystem } from "@/lib/coating-math/display-units";
+import { daysBetween, MAX_HORIZON_DAYS } from "@/lib/forecast/forecast";
 import { cureKey, proposeOrder, scheduleBoard, type BoardSchedule, type BoardSlot, type ColourChange } from "@/lib/runs/board";
 import { planRun, type PlanCoating, type PlanPart, type PlanRunInput, type RunPlan } from "@/lib/runs/plan-run";
 import { canTransition, isEditable, occupiesLine, RUN_STATUS_LABELS, RUN_TRANSITIONS, type RunStatus } from "@/lib/runs/status";
@@ -36,6 +38,7 @@ import type { RackOrientation } from "@/lib/rack/types";
 import type { BoardOrder, RunInput } from "@/lib/validation/runs";
 import { dateToEpoch, epochToDate, nowSeconds, toCoatingView, type CoatingView } from "./coatings";
 import { utilisationEstimate } from "./feedback";
+import { buildForecast } from "./forecast";
 import { ApiError } from "./http";
 import { toLineView, type LineView } from "./lines";
 import { savedPlanKey, savedRackingOf, type SavedRacking } from "./rack-plans";
@@ -418,14 +421,58 @@ export async function listRuns(q: RunQuery = {}): Promise<RunListItem[]> {
   return planned.map((p) => ({ ...strip(p.base), planError: p.planError, summary: p.plan ? summaryOf(p.plan) : null }));
 }
 
-export async function getRun(id: number): Promise<RunDetail> {
+/**
+ * One run with its plan and warnings. `stockIn`: also warn, in these units, when the material
+ * forecast leaves too little of a coating for a run still being planned (the run page asks).
+ */
+export async function getRun(id: number, stockIn?: UnitSystem): Promise<RunDetail> {
   const db = await getDb();
   const row = await findRunRow(db, id);
   if (!row) throw new ApiError(404, "not_found", "No such run.");
   const { planned, ctx } = await planRows(db, [row]);
   const p = planned[0];
-  const shift = occupiesLine(row.status) ? await shiftWarnings(row.id, row.line_id, epochToDate(row.run_date), row.shift) : [];
-  return { ...strip(p.base), planError: p.planError, plan: p.plan, lineView: ctx.lines.get(row.line_id)!, warnings: [...(p.plan?.warnings ?? []), ...shift] };
+  const date = epochToDate(row.run_date);
+  const shift = occupiesLine(row.status) ? await shiftWarnings(row.id, row.line_id, date, row.shift) : [];
+  const stock = stockIn && p.plan && followsSavedPlan(row.status) ? await stockWarnings(p.plan, date, row.id, stockIn) : [];
+  return { ...strip(p.base), planError: p.planError, plan: p.plan, lineView: ctx.lines.get(row.line_id)!, warnings: [...(p.plan?.warnings ?? []), ...shift, ...stock] };
+}
+
+/**
+ * Coats whose coating the material forecast (planned and started runs, stock, open purchase
+ * requests) cannot cover by the run's day. A run the forecast already counts (`runId`, planned)
+ * is short when the coating runs out on or before its day; a draft or an unsaved run is short
+ * when it needs more than the forecast leaves at the end of its day.
+ */
+async function stockWarnings(plan: RunPlan, date: string, runId: number | null, system: UnitSystem): Promise<string[]> {
+  const days = daysBetween(epochToDate(nowSeconds()), date);
+  if (days < 0 || days >= MAX_HORIZON_DAYS) return [];
+  const forecast = await buildForecast(days + 1);
+  const kg = (v: number) => formatQuantity("massKg", v, system, 3);
+  const needs = new Map<number, { code: string; kg: number }>();
+  for (const c of plan.coats) needs.set(c.coatingId, { code: c.code, kg: (needs.get(c.coatingId)?.kg ?? 0) + c.materialKg });
+  const out: string[] = [];
+  for (const [coatingId, need] of needs) {
+    const f = forecast.coatings.find((c) => c.coatingId === coatingId);
+    if (!f) continue;
+    const counted = runId !== null && f.demands.some((d) => d.runId === runId);
+    if (counted) {
+      if (f.stockOutDate !== null && f.stockOutDate <= date) {
+        out.push(
+          `${need.code}: the material forecast runs out on ${f.stockOutDate}, short of ${kg(f.shortfallKg)} by ${date} with this run's ${kg(need.kg)} counted ` +
+            `(${kg(f.stockKg)} usable in stock, ${kg(f.incomingKg)} on order). Order more or move runs (purchasing sees the detail in the material forecast).`,
+        );
+      }
+    } else {
+      const left = f.series.at(-1)?.stockKg ?? f.stockKg;
+      if (need.kg > left + 1e-9) {
+        out.push(
+          `${need.code}: this run needs ${kg(need.kg)}, but the material forecast leaves ${kg(left)} usable on ${date} after the planned runs ` +
+            `(${kg(f.stockKg)} in stock, ${kg(f.incomingKg)} on order). Order more or move runs (purchasing sees the detail in the material forecast).`,
+        );
+      }
+    }
+  }
+  return out;
 }
 
 /** Parts a run may be planned for (the form's list). */
@@ -530,7 +577,7 @@ export interface RunPreview {
  * The plan of a run not yet saved (the form's live summary), with the shift warning it would
  * get: the run goes last on its board, or keeps its place when it is `exceptRunId` being edited.
  */
-export async function previewRun(input: RunInput, exceptRunId?: number): Promise<RunPreview> {
+export async function previewRun(input: RunInput, exceptRunId?: number, stockIn?: UnitSystem): Promise<RunPreview> {
   const db = await getDb();
   const plan = await planChecked(db, input);
   const board = await getBoard(input.lineId, input.date);
@@ -550,6 +597,8 @@ export async function previewRun(input: RunInput, exceptRunId?: number): Promise
         `${formatSignificant(slot.overflowMin, 3)} min after the ${hours(sched.shiftMin)} h shift.`,
     );
   }
+  // an edited run that the forecast counts is left in it: its own old figures stand in for the new
+  if (stockIn) warnings.push(...(await stockWarnings(plan, input.date, exceptRunId ?? null, stockIn)));
   return { plan, warnings };
 }
 

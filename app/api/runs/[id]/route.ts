@@ -6,8 +6,10 @@ import { runInputSchema } from "@/lib/validation/runs";
 type P = { id: string };
 export type RunOne = { run: RunDetail };
 
-/** The run with its computed plan (null with `planError` when it no longer plans). */
-export const GET = route<P>("/api/runs/[id]", "GET", async ({ params }) => Response.json({ run: await getRun(parseId(params.id, "run")) } satisfies RunOne));
+/** The run with its computed plan (null with `planError` when it no longer plans) and warnings, stock ones in the reader's units. */
+export const GET = route<P>("/api/runs/[id]", "GET", async ({ params, user }) =>
+  Response.json({ run: await getRun(parseId(params.id, "run"), user.unitSystem) } satisfies RunOne),
+);
 
 /** Replaces a draft or planned run (409 once it has started). */
 export const PUT = route<P>("/api/runs/[id]", "PUT", async ({ request, params }) => {
