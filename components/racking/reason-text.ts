@@ -2,16 +2,10 @@
 // that sentence is shown as is, for US users the same facts are worded again in inches and pounds
 // by the planner's own sentence builder (lib/rack/explain.ts).
 
-import { formatQuantity, type UnitSystem } from "@/lib/coating-math/display-units";
-import { rackReason, type RackReasonUnits } from "@/lib/rack/explain";
+import type { UnitSystem } from "@/lib/coating-math/display-units";
+import { rackReason, rackReasonUnits } from "@/lib/rack/explain";
 import type { RackPlanResult } from "@/app/api/rack/plan/route";
 import type { RackPlanRequest } from "@/lib/validation/rack";
-
-/** Lengths and masses written in the reader's units, 4 significant figures. */
-export function rackReasonUnits(system: UnitSystem): RackReasonUnits {
-  const length = (mm: number) => formatQuantity("lengthMm", mm, system, 4);
-  return { lengths: (values) => values.map(length).join(" × "), length, mass: (kg) => formatQuantity("massKg", kg, system, 4) };
-}
 
 export function reasonText(plan: RackPlanResult, input: RackPlanRequest, system: UnitSystem): string {
   if (system === "metric") return plan.reason;

@@ -16,7 +16,6 @@ import { dayLabel } from "./format";
 import { CoatsTable, PlanFacts, Warnings } from "./plan-summary";
 import { StatusBadge } from "./status-badge";
 import { browserOnly } from "@/components/ui/browser-only";
-import { runRackingReason } from "./racking-reason";
 
 // The edit form loads when someone opens it: it stays out of the run page's first load.
 const RunForm = browserOnly(
@@ -180,7 +179,7 @@ export function RunDetailView({ id, parts, unitSystem: sys, currency, canPlan }:
           </section>
           <section className="card space-y-3" aria-labelledby="rack-h">
             <h2 id="rack-h">Racking</h2>
-            <p className="text-sm">{runRackingReason(plan.racking, run.part, sys)}</p>
+            <p className="text-sm">{run.rackingReason ?? plan.racking.reason}</p>
             <RackViewLazy
               windowMm={plan.racking.windowMm}
               placements={plan.racking.plan.placements.slice(0, plan.racking.partsPerCarrier)}

@@ -21,7 +21,6 @@ import { CoatsTable, PlanFacts, Warnings } from "./plan-summary";
 import { RackDiagram } from "./rack-diagram";
 import { localToday, q } from "./format";
 import { Swatch } from "./status-badge";
-import { runRackingReason } from "./racking-reason";
 
 interface CoatDraft {
   key: number;
@@ -475,7 +474,7 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
             <CoatsTable plan={shown.plan} unitSystem={sys} currency={currency} />
             <div>
               <h3 className="text-sm font-semibold">Racking</h3>
-              <p className="mt-1 text-sm text-ink-soft">{runRackingReason(shown.plan.racking, part ?? null, sys)}</p>
+              <p className="mt-1 text-sm text-ink-soft">{shown.rackingReason}</p>
               <div className="mt-2">
                 <RackDiagram windowMm={shown.plan.racking.windowMm} placements={shown.plan.racking.plan.placements} unitSystem={sys} heightPx={160} />
               </div>

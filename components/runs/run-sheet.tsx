@@ -13,7 +13,6 @@ import { containerText } from "./plan-summary";
 import { dayLabel, duration, percent, plural, q } from "./format";
 import { PrintButton } from "./print-button";
 import { RackDiagram } from "./rack-diagram";
-import { runRackingReason } from "./racking-reason";
 
 interface Props {
   run: RunDetail;
@@ -197,7 +196,7 @@ export function RunSheet({ run, plan, unitSystem: sys, plantName, printedAt }: P
 
       <section aria-labelledby="s-rack" className="sheet-rack">
         <h2 id="s-rack">Racking</h2>
-        <p className="text-sm">{runRackingReason(plan.racking, run.part, sys)}{plan.racking.overridden ? ` Set by hand to ${plan.racking.partsPerCarrier} per ${word}.` : ""}</p>
+        <p className="text-sm">{run.rackingReason ?? plan.racking.reason}{plan.racking.overridden ? ` Set by hand to ${plan.racking.partsPerCarrier} per ${word}.` : ""}</p>
         <div className="mt-2 flex flex-wrap items-start gap-6">
           <RackDiagram windowMm={plan.racking.windowMm} placements={plan.racking.plan.placements.slice(0, plan.racking.partsPerCarrier)} unitSystem={sys} heightPx={210} />
           <div className="text-sm">

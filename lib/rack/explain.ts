@@ -1,6 +1,7 @@
 // The racking plan's reason in one sentence, for any unit system: the caller passes how lengths
 // and masses are written (metric by default, as the API words it). Small and free of the planner
 // itself so client screens can word a plan in the reader's units.
+import { formatQuantity, type UnitSystem } from "@/lib/coating-math/display-units";
 import type { OrientationMode, RackOrientation } from "./types";
 
 export interface RackReasonFacts {
@@ -31,6 +32,13 @@ export const METRIC_REASON_UNITS: RackReasonUnits = {
   length: (mm) => `${metricNumber(mm)} mm`,
   mass: (kg) => `${metricNumber(kg)} kg`,
 };
+
+/** Lengths and masses in the reader's units, 4 significant figures (metric: the API's own wording). */
+export function rackReasonUnits(system: UnitSystem): RackReasonUnits {
+  if (system === "metric") return METRIC_REASON_UNITS;
+  const length = (mm: number) => formatQuantity("lengthMm", mm, system, 4);
+  return { lengths: (values) => values.map(length).join(" × "), length, mass: (kg) => formatQuantity("massKg", kg, system, 4) };
+}
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 

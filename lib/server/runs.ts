@@ -32,6 +32,7 @@ import { formatSignificant } from "@/lib/coating-math/units";
 import { formatQuantity, type UnitSystem } from "@/lib/coating-math/display-units";
 import { daysBetween, MAX_HORIZON_DAYS } from "@/lib/forecast/forecast";
 import { cureKey, proposeOrder, scheduleBoard, type BoardSchedule, type BoardSlot, type ColourChange } from "@/lib/runs/board";
+import { runRackingReason } from "@/lib/runs/racking-reason";
 import { planRun, type PlanCoating, type PlanPart, type PlanRunInput, type RunPlan } from "@/lib/runs/plan-run";
 import { canTransition, isEditable, occupiesLine, RUN_STATUS_LABELS, RUN_TRANSITIONS, type RunStatus } from "@/lib/runs/status";
 import type { RackOrientation } from "@/lib/rack/types";
@@ -129,6 +130,8 @@ export interface RunDetail extends RunViewBase {
   lineView: LineView;
   /** the plan's warnings and, when the run ends past its shift, that one too */
   warnings: string[];
+  /** the racking sentence in the reader's units (the plan's own is metric) */
+  rackingReason: string | null;
 }
 
 export interface SavedRun {
@@ -422,10 +425,11 @@ export async function listRuns(q: RunQuery = {}): Promise<RunListItem[]> {
 }
 
 /**
- * One run with its plan and warnings. `stockIn`: also warn, in these units, when the material
- * forecast leaves too little of a coating for a run still being planned (the run page asks).
+ * One run with its plan and warnings. `reader`: the units to word the racking sentence in, and
+ * also warn, in those units, when the material forecast leaves too little of a coating for a run
+ * still being planned (the run page and sheet ask).
  */
-export async function getRun(id: number, stockIn?: UnitSystem): Promise<RunDetail> {
+export async function getRun(id: number, reader?: UnitSystem): Promise<RunDetail> {
   const db = await getDb();
   const row = await findRunRow(db, id);
   if (!row) throw new ApiError(404, "not_found", "No such run.");
@@ -433,8 +437,15 @@ export async function getRun(id: number, stockIn?: UnitSystem): Promise<RunDetai
   const p = planned[0];
   const date = epochToDate(row.run_date);
   const shift = occupiesLine(row.status) ? await shiftWarnings(row.id, row.line_id, date, row.shift) : [];
-  const stock = stockIn && p.plan && followsSavedPlan(row.status) ? await stockWarnings(p.plan, date, row.id, stockIn) : [];
-  return { ...strip(p.base), planError: p.planError, plan: p.plan, lineView: ctx.lines.get(row.line_id)!, warnings: [...(p.plan?.warnings ?? []), ...shift, ...stock] };
+  const stock = reader && p.plan && followsSavedPlan(row.status) ? await stockWarnings(p.plan, date, row.id, reader) : [];
+  return {
+    ...strip(p.base),
+    planError: p.planError,
+    plan: p.plan,
+    lineView: ctx.lines.get(row.line_id)!,
+    warnings: [...(p.plan?.warnings ?? []), ...shift, ...stock],
+    rackingReason: p.plan ? runRackingReason(p.plan.racking, p.base.part, reader ?? "metric") : null,
+  };
 }
 
 /**
@@ -571,13 +582,15 @@ async function shiftWarnings(runId: number, lineId: number, date: string, shift:
 export interface RunPreview {
   plan: RunPlan;
   warnings: string[];
+  /** the racking sentence in the reader's units */
+  rackingReason: string;
 }
 
 /**
  * The plan of a run not yet saved (the form's live summary), with the shift warning it would
  * get: the run goes last on its board, or keeps its place when it is `exceptRunId` being edited.
  */
-export async function previewRun(input: RunInput, exceptRunId?: number, stockIn?: UnitSystem): Promise<RunPreview> {
+export async function previewRun(input: RunInput, exceptRunId?: number, reader?: UnitSystem): Promise<RunPreview> {
   const db = await getDb();
   const plan = await planChecked(db, input);
   const board = await getBoard(input.lineId, input.date);
@@ -598,8 +611,9 @@ export async function previewRun(input: RunInput, exceptRunId?: number, stockIn?
     );
   }
   // an edited run that the forecast counts is left in it: its own old figures stand in for the new
-  if (stockIn) warnings.push(...(await stockWarnings(plan, input.date, exceptRunId ?? null, stockIn)));
-  return { plan, warnings };
+  if (reader) warnings.push(...(await stockWarnings(plan, input.date, exceptRunId ?? null, reader)));
+  const part = await findPartForRun(db, input.partId);
+  return { plan, warnings, rackingReason: runRackingReason(plan.racking, part ? toPartView(part) : null, reader ?? "metric") };
 }
 
 export async function createRun(input: RunInput, user: SessionUser): Promise<SavedRun> {

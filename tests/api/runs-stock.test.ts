@@ -90,3 +90,23 @@ describe("runs warn when the material forecast cannot cover them", () => {
     expect(stockLines((await read()).warnings)).toEqual([]);
   });
 });
+
+describe("the run's racking sentence is worded in the reader's units", () => {
+  it("metric readers get the plan's own sentence; US readers the same facts in inches and pounds", async () => {
+    const db = await getDb();
+    const rows = await db.selectFrom("runs").select("id").orderBy("id").execute();
+    let checked = 0;
+    for (const { id } of rows) {
+      const as = async (role: Role): Promise<RunDetail> => (await (await oneGet(request(`/api/runs/${id}`, { cookie: cookies[role] }), params({ id: String(id) }))).json()).run;
+      const metric = await as("supervisor");
+      if (!metric.plan) continue;
+      expect(metric.rackingReason).toBe(metric.plan.racking.reason);
+      const us = (await as("manager")).rackingReason!;
+      // same counts, no metric units left (source: NIST SP 811 for the conversions, checked in the unit tests)
+      expect(us).not.toMatch(/\d (mm|kg)\b/);
+      for (const n of metric.plan.racking.reason.match(/\b\d+ (?:of the \d+ parts|along travel|tiers?|across)/g) ?? []) expect(us).toContain(n);
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(3);
+  });
+});

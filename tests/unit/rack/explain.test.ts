@@ -1,6 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { rackReason, type RackReasonFacts } from "@/lib/rack/explain";
-import { rackReasonUnits } from "@/components/racking/reason-text";
+import { rackReason, rackReasonUnits, type RackReasonFacts } from "@/lib/rack/explain";
 
 // source: NIST SP 811 (1 lb = 0.45359237 kg exactly, 1 in = 25.4 mm exactly); the counts are the
 // planner's, the sentences our own wording.
@@ -19,6 +18,7 @@ const facts: RackReasonFacts = {
 describe("racking reason in the reader's units", () => {
   it("words the load limit in kg by default and in lb for US readers", () => {
     expect(rackReason(facts)).toBe("The 250 kg load limit allows 7 of the 9 parts that fit.");
+    expect(rackReason(facts, rackReasonUnits("metric"))).toBe(rackReason(facts));
     // 250 / 0.45359237 = 551.16 lb → 551.2 lb to 4 significant figures
     expect(rackReason(facts, rackReasonUnits("us"))).toBe("The 551.2 lb load limit allows 7 of the 9 parts that fit.");
   });

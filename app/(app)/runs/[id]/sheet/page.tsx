@@ -11,7 +11,7 @@ export const metadata = { title: "Run sheet" };
 export default async function RunSheetRoute({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageUser();
   const { id } = await params;
-  const run = await recordOrNotFound(id, getRun);
+  const run = await recordOrNotFound(id, (runId) => getRun(runId, user.unitSystem));
   const plant = await plantSettings();
   return (
     <div className="space-y-3">

@@ -1,8 +1,8 @@
-// A run's racking sentence in the reader's units (the API words it in mm and kg).
+// A run's racking sentence in the reader's units (the plan words it in mm and kg). The server
+// words it for the reader so run pages need not ship the sentence builder.
 import type { UnitSystem } from "@/lib/coating-math/display-units";
-import { rackReason } from "@/lib/rack/explain";
-import type { RunRacking } from "@/lib/runs/plan-run";
-import { rackReasonUnits } from "@/components/racking/reason-text";
+import { rackReason, rackReasonUnits } from "@/lib/rack/explain";
+import type { RunRacking } from "./plan-run";
 
 type PartBox = { lengthMm: number; widthMm: number; heightMm: number; massKg: number };
 
