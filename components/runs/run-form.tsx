@@ -170,6 +170,10 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
   const [draft, setDraft] = useState<Draft>(() => draftFrom(initial, sys));
   const [saving, setSaving] = useState(false);
   const [saveError, setSaveError] = useState<FetchError | null>(null);
+  // a field's own errors show once it has been changed, or all of them after a try to save
+  const [touched, setTouched] = useState<ReadonlySet<string>>(() => new Set(initial ? ["*"] : []));
+  const [tried, setTried] = useState(false);
+  const touch = (f: string) => setTouched((t) => (t.has(f) ? t : new Set(t).add(f)));
   const { data: linesBody, error: linesError } = useSWR<LinesList>("/api/lines");
   const { data: coatingsBody, error: coatingsError } = useSWR<CoatingsList>("/api/coatings");
   const lines = useMemo(() => linesBody?.lines.filter((l) => !l.archived) ?? [], [linesBody]);
@@ -177,8 +181,14 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
   const line = lines.find((l) => String(l.id) === draft.lineId);
   const part = parts.find((p) => p.id === draft.partId);
 
-  const set = <K extends keyof Draft>(k: K) => (v: Draft[K]) => setDraft((d) => ({ ...d, [k]: v }));
-  const setCoat = (key: number, patch: Partial<CoatDraft>) => setDraft((d) => ({ ...d, coats: d.coats.map((c) => (c.key === key ? { ...c, ...patch } : c)) }));
+  const set = <K extends keyof Draft>(k: K) => (v: Draft[K]) => {
+    touch(String(k));
+    setDraft((d) => ({ ...d, [k]: v }));
+  };
+  const setCoat = (key: number, patch: Partial<CoatDraft>) => {
+    touch("coats");
+    setDraft((d) => ({ ...d, coats: d.coats.map((c) => (c.key === key ? { ...c, ...patch } : c)) }));
+  };
   const moveCoat = (i: number, by: -1 | 1) =>
     setDraft((d) => {
       const coats = [...d.coats];
@@ -189,6 +199,7 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
     });
 
   function pickCoating(key: number, id: string) {
+    touch("coats");
     const c = coatings.get(Number(id));
     setDraft((d) => ({
       ...d,
@@ -210,7 +221,10 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
     { keepPreviousData: true, shouldRetryOnError: false, revalidateOnFocus: false },
   );
   const apiFields = (saveError?.fields ?? (debounced === bodyText ? previewError?.fields : undefined)) ?? {};
-  const err = (f: string) => localErrors[f] ?? apiFields[f];
+  const showLocal = (f: string) => tried || touched.has("*") || touched.has(f) || (f.startsWith("coats.") && touched.has("coats"));
+  // the API words some field errors as a fragment ("must be …"): make it a sentence
+  const sentence = (m: string | undefined) => (m && /^[a-z]/.test(m) ? `${m[0].toUpperCase()}${m.slice(1)}${m.endsWith(".") ? "" : "."}` : m);
+  const err = (f: string) => sentence((showLocal(f) ? localErrors[f] : undefined) ?? apiFields[f]);
   const shown = !previewError && preview && bodyText ? preview : null;
   const stale = shown !== null && (debounced !== bodyText || isValidating);
   // the preview says when a saved racking plan decides this run's racking
@@ -218,7 +232,12 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
 
   async function save(e: React.FormEvent) {
     e.preventDefault();
-    if (!body) return;
+    if (!body) {
+      setTried(true);
+      // take the keyboard to the first field that needs attention
+      requestAnimationFrame(() => (document.querySelector<HTMLElement>('form [aria-invalid="true"]'))?.focus());
+      return;
+    }
     setSaving(true);
     setSaveError(null);
     try {
@@ -445,7 +464,7 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
           </p>
         )}
         <div className="flex gap-2">
-          <button type="submit" className="btn-primary" disabled={saving || !body}>
+          <button type="submit" className="btn-primary" disabled={saving}>
             {saving ? "Saving…" : initial ? "Save changes" : "Save as draft"}
           </button>
           {onCancel && (
@@ -462,7 +481,11 @@ export function RunForm({ parts, unitSystem: sys, currency, initial, onSaved, on
           {stale && <span className="text-xs text-ink-faint" role="status">Updating…</span>}
         </div>
         {previewError && debounced === bodyText ? (
-          <p className="field-error" role="alert" data-testid="preview-error">{previewError.message}</p>
+          <p className="field-error" role="alert" data-testid="preview-error">
+            {previewError.fields && Object.keys(previewError.fields).length
+              ? "The plan appears once the marked fields are put right."
+              : previewError.message}
+          </p>
         ) : !bodyText ? (
           <p className="text-sm text-ink-soft">Choose a part, a line and at least one coating, and enter the quantity and film: the plan appears here.</p>
         ) : !shown ? (

@@ -193,6 +193,14 @@ describe("runs, the day board and the run sheet", () => {
     const page = await signInPage(browser, "supervisor@bramblecote.test");
     await page.goto(`${baseUrl()}/runs`);
     await page.getByRole("button", { name: "Plan a run" }).click();
+    // an untouched form is not marked red; trying to save marks what is missing and takes the keyboard there
+    const form = page.getByRole("form", { name: "Plan a run" });
+    await page.getByLabel("Part", { exact: true }).waitFor();
+    expect(await form.locator(".field-error").count()).toBe(0);
+    await page.getByRole("button", { name: "Save as draft" }).click();
+    await form.getByText("Choose a part.").waitFor({ timeout: 15_000 });
+    await form.getByText("Choose a line.").waitFor();
+    await expect.poll(() => page.evaluate(() => document.activeElement?.id), { timeout: 15_000 }).toBe("run-part");
     await page.getByLabel("Part", { exact: true }).selectOption({ label: "BC-5020 · Bike-rack hoop, 48.3 mm tube" });
     await page.getByLabel("Quantity (parts)").fill("10");
     await page.getByLabel("Line", { exact: true }).selectOption({ label: "Line 1 — E-coat and powder" });
