@@ -133,7 +133,7 @@ export function CoatsTable({ plan, unitSystem: sys, currency }: Props) {
                 </span>
               </td>
               <td className={`py-1.5 pr-3 num ${c.cure.pass ? "text-pass" : "text-oxide font-medium"}`}>
-                {c.cure.marginMin !== null ? `${c.cure.marginMin >= 0 ? "+" : "−"}${duration(Math.abs(c.cure.marginMin))}` : c.cure.pass ? "cures" : "does not cure"}
+                {c.cure.marginMin !== null ? `${c.cure.marginMin >= 0 ? "+" : "−"}${duration(Math.abs(c.cure.marginMin))}` : c.cure.pass ? (c.cure.cycleMin !== null ? "cycle set to cure" : "cures") : "does not cure"}
                 {c.cure.requiredMin !== null && <span className="block text-xs text-ink-faint">needs {duration(c.cure.requiredMin)}</span>}
               </td>
             </tr>

@@ -87,9 +87,9 @@ export function RunsPage({ parts, unitSystem: sys, currency, canPlan }: Props) {
                   <th className="px-3 py-2 font-medium">Part</th>
                   <th className="px-3 py-2 font-medium">Coats</th>
                   <th className="px-3 py-2 text-right font-medium">Quantity</th>
-                  <th className="px-3 py-2 text-right font-medium">Carriers</th>
+                  <th className="px-3 py-2 text-right font-medium">Carriers or racks</th>
                   <th className="px-3 py-2 text-right font-medium">Line time</th>
-                  <th className="px-3 py-2 text-right font-medium">Material</th>
+                  <th className="px-3 py-2 text-right font-medium">Material per coating</th>
                   <th className="px-3 py-2 text-right font-medium">Cost per part</th>
                   <th className="px-3 py-2 font-medium">Status</th>
                 </tr>
@@ -120,9 +120,20 @@ export function RunsPage({ parts, unitSystem: sys, currency, canPlan }: Props) {
                     <td className="px-3 py-2 text-right num">{r.quantity.toLocaleString("en-US")}</td>
                     {r.summary ? (
                       <>
-                        <td className="px-3 py-2 text-right num">{r.summary.carriers.toLocaleString("en-US")}<span className="block text-xs text-ink-faint">{r.summary.partsPerCarrier} per carrier</span></td>
+                        <td className="px-3 py-2 text-right num">
+                          {r.summary.carriers.toLocaleString("en-US")} {r.line.kind === "conveyor" ? "carriers" : "racks"}
+                          <span className="block text-xs text-ink-faint">{r.summary.partsPerCarrier} per {r.line.kind === "conveyor" ? "carrier" : "rack"}</span>
+                        </td>
                         <td className="px-3 py-2 text-right num">{duration(r.summary.lineTimeMin)}</td>
-                        <td className="px-3 py-2 text-right num">{q("massKg", r.summary.materialKg, sys)}</td>
+                        <td className="px-3 py-2 text-right num">
+                          <ul>
+                            {r.summary.materials.map((m) => (
+                              <li key={m.code} className="whitespace-nowrap">
+                                {q("massKg", m.kg, sys)} <span className="text-xs text-ink-faint">{m.code}</span>
+                              </li>
+                            ))}
+                          </ul>
+                        </td>
                         <td className="px-3 py-2 text-right num">{money(r.summary.costPerPart, currency)}</td>
                       </>
                     ) : (

@@ -113,6 +113,8 @@ export interface RunSummary {
   carriers: number;
   lineTimeMin: number;
   materialKg: number;
+  /** per coating, in coat order: e-coat paint and powder are stocked and bought apart */
+  materials: { code: string; kind: "powder" | "e-coat"; kg: number }[];
   costPerPart: number;
   runCost: number;
   cures: boolean;
@@ -365,6 +367,12 @@ function summaryOf(plan: RunPlan): RunSummary {
     carriers: plan.carriers,
     lineTimeMin: plan.lineTimeMin,
     materialKg: plan.materialKg,
+    materials: plan.coats.reduce<RunSummary["materials"]>((list, c) => {
+      const same = list.find((m) => m.code === c.code);
+      if (same) same.kg += c.materialKg;
+      else list.push({ code: c.code, kind: c.kind, kg: c.materialKg });
+      return list;
+    }, []),
     costPerPart: plan.cost.totalPerPart,
     runCost: plan.cost.runTotal,
     cures: plan.cures,

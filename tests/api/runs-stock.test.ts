@@ -110,3 +110,21 @@ describe("the run's racking sentence is worded in the reader's units", () => {
     expect(checked).toBeGreaterThan(3);
   });
 });
+
+describe("the run list gives material per coating", () => {
+  it("one figure per coating, summing to the run's material (e-coat paint and powder are stocked apart)", async () => {
+    // common practice, no source: paint and powder are bought and stored separately
+    const { GET: listGet } = await import("@/app/api/runs/route");
+    const { runs } = (await (await listGet(request(`/api/runs?from=${inDays(-30)}&to=${inDays(30)}`, { cookie: cookies.supervisor }))).json()) as {
+      runs: { coats: { coating: { code: string } | null }[]; summary: { materialKg: number; materials: { code: string; kind: string; kg: number }[] } | null }[];
+    };
+    const planned = runs.filter((r) => r.summary);
+    expect(planned.length).toBeGreaterThan(3);
+    for (const r of planned) {
+      const m = r.summary!.materials;
+      expect(m.map((x) => x.code)).toEqual([...new Set(r.coats.map((c) => c.coating!.code))]);
+      expect(m.reduce((a, x) => a + x.kg, 0)).toBeCloseTo(r.summary!.materialKg, 9);
+    }
+    expect(planned.some((r) => new Set(r.summary!.materials.map((x) => x.kind)).size === 2)).toBe(true);
+  });
+});
