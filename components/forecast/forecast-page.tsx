@@ -160,7 +160,7 @@ export function ForecastPage({ unitSystem, canOrder }: Props) {
           {chart && (
             <section className="card" aria-labelledby="chart-h">
               <h2 id="chart-h">{chart.code}: projected stock</h2>
-              <StockChart code={chart.code} series={chart.series} reorderPointKg={chart.reorderPointKg} stockOutDate={chart.stockOutDate} unitSystem={unitSystem} />
+              <StockChart code={chart.code} series={chart.series} reorderPointKg={chart.reorderPointKg} stockOutDate={chart.stockOutDate} shortfallKg={chart.shortfallKg} unitSystem={unitSystem} />
               {chart.demands.length > 0 && (
                 <ul className="mt-2 text-xs text-ink-soft">
                   {chart.demands.map((d) => (
