@@ -286,7 +286,18 @@ function planRacking(input: PlanRunInput, warnings: string[]): RunRacking {
   );
   const saved = racking.savedPlanId ? ` (with saved racking plan ${racking.savedPlanId})` : "";
   if (plan.spaceCount === 0) {
-    throw new DomainError("lineId", `Part ${part.number} does not fit on ${line.name}'s ${word}${saved}: ${plan.reason}`);
+    // the way out, when there is one: upright only, but it would fit laid over
+    let hint = "";
+    if (racking.orientations === "upright" && !racking.orientation) {
+      const laid = planRack({
+        part: { lengthMm: part.lengthMm, widthMm: part.widthMm, heightMm: part.heightMm, massKg: part.massKg },
+        carrier: { ...line.windowMm, maxLoadKg: line.maxLoadKg },
+        clearanceMm: racking.clearanceMm,
+        orientations: "any",
+      });
+      if (laid.spaceCount > 0) hint = ` Allowing any orientation fits ${laid.spaceCount} per ${word}.`;
+    }
+    throw new DomainError("lineId", `Part ${part.number} does not fit on ${line.name}'s ${word}${saved}: ${plan.reason}${hint}`);
   }
   const override = racking.partsPerCarrierOverride ?? null;
   if (override === null && plan.count === 0) {

@@ -196,6 +196,17 @@ describe("bad input names the field and says why", () => {
     expect(() => planRun(twoCoat({ part: big }))).toThrow(/does not fit on Line 1's carrier: .*larger than the 500 × 1500 × 600 mm window/);
   });
 
+  it("upright only and too tall to stand: the message says how many fit when any orientation is allowed", () => {
+    // hand working: 1400 × 100 × 400 mm upright needs a 1400 × 100 footprint, wider than the
+    // 500 × 600 mm floor; stood on end (1400 ≤ 1500 mm high, one tier) its 100 × 400 mm
+    // footprint packs 7 to the 500 × 600 mm floor: 6 with 400 across (1 × 6 deep) and 1 more in
+    // the 100 mm strip left, the most by area (300 000 / 40 000 = 7.5).
+    const tall = { ...benchEnd, lengthMm: 1400, widthMm: 100, heightMm: 400 };
+    expect(() => planRun(twoCoat({ part: tall }))).toThrow(/in every upright orientation\. Allowing any orientation fits 7 per carrier\.$/);
+    // a part too big every way gets no such hint
+    expect(() => planRun(twoCoat({ part: { ...benchEnd, lengthMm: 1600, widthMm: 100, heightMm: 1600 } }))).toThrow(/window in every upright orientation\.$/);
+  });
+
   it.each([
     ["quantity 0", { quantity: 0 }, "quantity"],
     ["a fractional quantity", { quantity: 2.5 }, "quantity"],
