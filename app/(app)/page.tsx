@@ -42,7 +42,7 @@ export default async function HomePage() {
           ))}
         </ul>
       </section>
-      {(user.role === "supervisor" || user.role === "operator" || user.role === "admin") && <TodayRuns showBoard={user.role !== "operator"} />}
+      {(user.role === "supervisor" || user.role === "operator" || user.role === "admin") && <TodayRuns showBoard={user.role !== "operator"} floor={user.role === "operator"} />}
       {(user.role === "purchaser" || user.role === "admin") && <StockAttention unitSystem={user.unitSystem} />}
       {(user.role === "purchaser" || user.role === "admin") && <RunningOutPanel unitSystem={user.unitSystem} />}
       {(user.role === "manager" || user.role === "admin") && <UtilisationHomePanel />}

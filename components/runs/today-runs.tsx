@@ -8,12 +8,13 @@ import type { RunListItem } from "@/lib/server/runs";
 import { duration, localToday } from "./format";
 import { StatusBadge, Swatch } from "./status-badge";
 
-export function TodayRuns({ showBoard }: { showBoard: boolean }) {
+/** `floor`: what the line works to, so drafts (not yet released to the floor) are left out. */
+export function TodayRuns({ showBoard, floor = false }: { showBoard: boolean; floor?: boolean }) {
   const today = localToday();
   const { data, error, isLoading } = useSWR<RunsList>(`/api/runs?date=${today}`);
   const byLine = new Map<string, RunListItem[]>();
   for (const r of data?.runs ?? []) {
-    if (r.status === "cancelled") continue;
+    if (r.status === "cancelled" || (floor && r.status === "draft")) continue;
     byLine.set(r.line.name, [...(byLine.get(r.line.name) ?? []), r]);
   }
   return (
