@@ -75,6 +75,22 @@ function useDebounced<T>(value: T, ms: number): T {
 }
 
 /** Key: [url, body, mesh version]; a mesh whose unit was changed keeps its id but not its figures. */
+/** Plain names of the fields the figures wait for. */
+const FIELD_WORDS: Record<string, string> = {
+  thicknessMm: "section thickness",
+  densityKgPerM3: "density",
+  massKg: "mass",
+  lengthMm: "length",
+  widthMm: "width",
+  heightMm: "height",
+  formula: "area formula",
+  areaM2: "outside area",
+};
+function missingWords(missing: ReadonlySet<string>): string {
+  const words = [...missing].map((k) => FIELD_WORDS[k] ?? (k.startsWith("dimensionsMm.") ? k.slice(13).replace(/Mm$/, "").replace(/([A-Z])/g, " $1").toLowerCase() : k.startsWith("dim-value-") ? "a dimension's value" : k));
+  return [...new Set(words)].join(", ");
+}
+
 async function measureFetcher([url, body]: [string, string, string]): Promise<PartMeasureResult> {
   return sendJson<PartMeasureResult>(url, "POST", JSON.parse(body));
 }
@@ -546,7 +562,11 @@ export function PartForm({ unitSystem, maxBytes, templates, densities, initial }
             <p className="field-error" role="alert" data-testid="measure-error">{measureError.message}</p>
           ) : !shown ? (
             <p className="text-sm text-ink-soft">
-              {method === "mesh" && !mesh ? "Upload the STL file to see its figures." : "Fill in the fields to see the area and mass."}
+              {method === "mesh" && !mesh
+                ? "Upload the STL file to see its figures."
+                : local.missing.size > 0
+                  ? `Still to fill in: ${missingWords(local.missing)}. The area and mass appear then.`
+                  : "Fill in the fields to see the area and mass."}
             </p>
           ) : (
             <dl className={`space-y-1.5 text-sm ${stale ? "opacity-70" : ""}`} data-testid="live-figures">
