@@ -62,7 +62,7 @@ export function CoatingDetail({ id, unitSystem: sys, currency, canEdit }: Props)
           <button className="btn-quiet ml-auto" onClick={() => setEditing(true)}>Edit coating</button>
         )}
       </div>
-      <p aria-live="polite" className="min-h-5 text-sm text-ink-soft">{notice}</p>
+      <p aria-live="polite" className={notice ? "text-sm text-ink-soft" : "sr-only"}>{notice}</p>
 
       {editing ? (
         <section className="card">
