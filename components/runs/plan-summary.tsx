@@ -87,7 +87,7 @@ export function utilisationText(c: RunPlan["coats"][number]): string {
 export function CoatsTable({ plan, unitSystem: sys, currency }: Props) {
   return (
     <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm" data-testid="coats-table">
+      <table className="w-full min-w-[44rem] text-left text-sm" data-testid="coats-table">
         <caption className="sr-only">Coats in order with their numbers</caption>
         <thead className="text-ink-soft">
           <tr>
