@@ -563,7 +563,7 @@ export function PartForm({ unitSystem, maxBytes, templates, densities, initial }
           ) : !shown ? (
             <p className="text-sm text-ink-soft">
               {method === "mesh" && !mesh
-                ? "Upload the STL file to see its figures."
+                ? `Upload the STL file${local.missing.size > 1 ? ` and fill in ${missingWords(new Set([...local.missing].filter((k) => k !== "meshId")))}` : ""} to see its figures.`
                 : local.missing.size > 0
                   ? `Still to fill in: ${missingWords(local.missing)}. The area and mass appear then.`
                   : "Fill in the fields to see the area and mass."}

@@ -70,7 +70,7 @@ describe("parts catalogue", () => {
     await page.getByLabel("Part number").fill("BC-7001");
     await page.getByLabel("Name", { exact: true }).fill("Test mounting block");
     // the figures panel says what it still waits for
-    await expect.poll(() => page.getByRole("region", { name: "Figures" }).textContent(), { timeout: 15_000 }).toMatch(/Still to fill in: .*section thickness.*\. The area and mass appear then\./);
+    await expect.poll(() => page.getByRole("region", { name: "Figures" }).textContent(), { timeout: 15_000 }).toMatch(/Upload the STL file and fill in .*section thickness.* to see its figures\./);
     await page.getByLabel("Section thickness (mm)").fill("25.4");
 
     // A 4 × 2 × 1 in block drawn in inches, 120 000 triangles (6 MB); sent as millimetres by mistake.
