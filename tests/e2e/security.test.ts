@@ -15,6 +15,14 @@ describe("security headers and cookie flags on the built app", () => {
     expect(r.headers.get("x-powered-by")).toBeNull();
   });
 
+  it("/favicon.ico answers with the app's icon, not a 404 (browsers ask for it on their own)", async () => {
+    const r = await fetch(`${baseUrl()}/favicon.ico`);
+    expect(r.status).toBe(200);
+    expect(r.headers.get("content-type")).toBe("image/svg+xml");
+    expect(await r.text()).toMatch(/^<svg /);
+    expect(r.headers.get("x-content-type-options")).toBe("nosniff");
+  });
+
   it("the session cookie is HttpOnly and SameSite=Lax, and Secure behind https", async () => {
     const body = JSON.stringify({ email: "operator@bramblecote.test", password: "coatwright-demo" });
     const plain = await fetch(`${baseUrl()}/api/auth/sign-in`, { method: "POST", headers: { "content-type": "application/json" }, body });
