@@ -78,7 +78,7 @@ async function runTemplate(cookie) {
 }
 
 /**
- * Writes until the server dies: each turn creates a run, then records film readings on it.
+ * Writes until the server dies: each turn creates a run, starts it, then records film readings on it.
  * Every write answered 201 is remembered by the id in its answer; afterwards each must be there.
  */
 async function writeLoop(cookie, template, acked, stop) {
@@ -89,6 +89,12 @@ async function writeLoop(cookie, template, acked, stop) {
       if (r.status !== 201) throw new Error(`unexpected ${r.status} on POST /api/runs: ${await r.text()}`);
       const runId = (await r.json()).run.id;
       acked.runs.push(runId);
+      // readings are taken once the run has started
+      for (const status of ["planned", "in-progress"]) {
+        const m = await fetch(`${base}/api/runs/${runId}/status`, json(cookie, { status }));
+        if (m.status >= 500) throw new Error(`5xx ${m.status} on POST status`);
+        if (m.status !== 200) throw new Error(`unexpected ${m.status} on POST status ${status}: ${await m.text()}`);
+      }
       const f = await fetch(
         `${base}/api/runs/${runId}/film-checks`,
         json(cookie, { rule: "sspc-pa2", coatIndex: 0, areas: [[[20, 21, 19], [22, 20, 21], [19, 20, 20]]] }),

@@ -67,7 +67,7 @@ export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin, canS
   // Retired gauges stay on old records but are not offered for new readings.
   const inUse = allGauges.filter((g) => g.retiredOn === null);
   const gauge = inUse.find((g) => g.id === gaugeId) ?? null;
-  const lockReason = "This run is done: only an admin may change its film records.";
+  const lockReason = run.lockReason ?? "";
 
   async function save() {
     setSaving(true);
@@ -125,6 +125,10 @@ export function FilmChecksView({ runId, unitSystem: sys, canWrite, isAdmin, canS
       </header>
 
       <SamplingPanel sampling={sampling} coats={coats} unitSystem={sys} />
+
+      {canWrite && run.locked && (
+        <p role="status" className="card text-sm text-ink-soft" data-testid="film-locked">{lockReason}</p>
+      )}
 
       {writable && coats.length > 0 && (
         <section className="card space-y-4" aria-labelledby="new-check">

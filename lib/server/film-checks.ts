@@ -118,7 +118,7 @@ export interface CoatSampling {
 }
 
 export interface RunFilmChecks {
-  run: { id: number; status: string; partNumber: string; partName: string; lineName: string; date: string; locked: boolean };
+  run: { id: number; status: string; partNumber: string; partName: string; lineName: string; date: string; locked: boolean; lockReason: string | null };
   coats: CoatSpec[];
   checks: FilmCheckView[];
   tests: FilmTestView[];
@@ -162,11 +162,21 @@ async function coatSpecs(db: Db, runId: number): Promise<CoatSpec[]> {
   });
 }
 
-/** Records of a done run are kept: only an admin may change them. */
+/**
+ * Why this user may not write film records on a run in this status, or null. Readings are taken
+ * on coated parts, so not before the run starts nor on a cancelled run; records of a done run are
+ * kept and only an admin may change them.
+ */
+function lockReasonFor(status: string, user: SessionUser): string | null {
+  if (status === "draft" || status === "planned") return "Film readings are taken on coated parts: this run has not started yet.";
+  if (status === "cancelled") return "This run was cancelled: no parts were coated on it.";
+  if (status === "done" && user.role !== "admin") return "This run is done: its film records are kept and only an admin may change them.";
+  return null;
+}
+
 function requireWritable(status: string, user: SessionUser): void {
-  if (status === "done" && user.role !== "admin") {
-    throw new ApiError(409, "conflict", "This run is done: its film records are kept and only an admin may change them.");
-  }
+  const reason = lockReasonFor(status, user);
+  if (reason) throw new ApiError(409, "conflict", reason);
 }
 
 function evaluationInput(
@@ -364,7 +374,8 @@ export async function runFilmChecks(runId: number, user: SessionUser): Promise<R
       partName: run.part_name,
       lineName: run.line_name,
       date: epochToDate(run.run_date),
-      locked: run.status === "done" && user.role !== "admin",
+      locked: lockReasonFor(run.status, user) !== null,
+      lockReason: lockReasonFor(run.status, user),
     },
     coats,
     checks,

@@ -154,6 +154,34 @@ describe("film checks of a run", () => {
   });
 });
 
+describe("readings only on coated parts", () => {
+  // common practice, no source: DFT is read on cured parts (SSPC-PA 2 measures the applied
+  // coating), so a run that has not started or was cancelled has nothing to read
+  it.each([
+    ["planned", "Film readings are taken on coated parts: this run has not started yet."],
+    ["draft", "Film readings are taken on coated parts: this run has not started yet."],
+    ["cancelled", "This run was cancelled: no parts were coated on it."],
+  ] as const)("a %s run refuses readings and other tests with 409 saying why; its page says so too", async (status, message) => {
+    const runId = await fenderRunId();
+    const db = await getDb();
+    await db.updateTable("runs").set({ status }).where("id", "=", runId).execute();
+    const before = Number((await db.selectFrom("film_checks").select((eb) => eb.fn.countAll().as("n")).executeTakeFirstOrThrow()).n);
+    const res = await post(runId, { rule: "sspc-pa2", coatIndex: 1, areas: [[70, 70, 70, 70, 70].map(spot)] });
+    expect(res.status).toBe(409);
+    expect((await res.json()).error.message).toBe(message);
+    const testRes = await testsPost(
+      request(`/api/runs/${runId}/tests`, { method: "POST", body: { kind: "coverage", result: "pass" }, cookie: cookies.operator }),
+      params({ id: String(runId) }),
+    );
+    expect(testRes.status).toBe(409);
+    expect(Number((await db.selectFrom("film_checks").select((eb) => eb.fn.countAll().as("n")).executeTakeFirstOrThrow()).n)).toBe(before);
+    const view = (await (await runGet(request(`/api/runs/${runId}/film-checks`, { cookie: cookies.operator }), params({ id: String(runId) }))).json()) as {
+      run: { locked: boolean; lockReason: string | null };
+    };
+    expect(view.run).toMatchObject({ locked: true, lockReason: message });
+  });
+});
+
 describe("other tests", () => {
   it.each([
     { body: { kind: "cure", solvent: "MEK", rubCount: 50, result: "pass" }, summary: "Solvent rub (ASTM D5402): 50 double rubs with MEK — pass" },
