@@ -136,6 +136,16 @@ describe("film checks", () => {
     await page.close();
   }, 120_000);
 
+  it("a run that has not started takes no readings, and its film page says why", async () => {
+    const page = await signInPage(browser, "operator@bramblecote.test");
+    const { runs } = (await (await page.request.get(`${baseUrl()}/api/runs`)).json()) as { runs: { id: number; status: string }[] };
+    const planned = runs.find((r) => r.status === "planned")!;
+    await page.goto(`${baseUrl()}/runs/${planned.id}/film`);
+    await expect.poll(() => page.getByTestId("film-locked").textContent(), { timeout: 15_000 }).toBe("Film readings are taken on coated parts: this run has not started yet.");
+    expect(await page.getByRole("heading", { name: "Enter readings" }).count()).toBe(0);
+    await page.context().close();
+  });
+
   it("the supervisor adds a gauge, corrects an overdue verification date and forgets a CSV mapping", async () => {
     const sup = await signInPage(browser, "supervisor@bramblecote.test");
     await sup.goto(`${baseUrl()}/quality`);
