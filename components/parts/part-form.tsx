@@ -585,6 +585,12 @@ export function PartForm({ unitSystem, maxBytes, templates, densities, initial }
                     : `No metal volume is known, so the mass is a ${MASS_ORIGIN_LABELS.sheet}: half the surface × ${showLength(Number(local.body.thicknessMm ?? 0), unitSystem)} × ${showDensity(shown.densityKgPerM3, unitSystem)}.`}
               </p>
               <Row term="Box (L × W × H)" value={showBox(shown.lengthMm, shown.widthMm, shown.heightMm, unitSystem)} />
+              {shown.massKg > shown.solidBoxMassKg * (1 + 1e-9) && (
+                <p role="status" className="rounded border border-caution-edge bg-caution-light p-2 text-xs" data-testid="mass-implausible">
+                  This mass is more than a solid block of this metal the size of the box would weigh ({showMass(shown.solidBoxMassKg, unitSystem)}): check the
+                  area, the section thickness, the mass or the box.
+                </p>
+              )}
             </dl>
           )}
         </section>

@@ -65,3 +65,16 @@ export function netCoatedAreaM2(areaM2: number, maskedAreaM2: number): number {
   }
   return Math.max(0, areaM2 - maskedAreaM2);
 }
+
+/**
+ * Mass of a solid block of metal filling the part's bounding box: no part of that box can weigh
+ * more, so a thin-wall estimate or an entered mass above it points at a wrong area, thickness,
+ * mass or box.
+ */
+export function solidBoxMassKg(lengthMm: number, widthMm: number, heightMm: number, densityKgPerM3: number): number {
+  requireNonNegative(lengthMm, "lengthMm", "The length");
+  requireNonNegative(widthMm, "widthMm", "The width");
+  requireNonNegative(heightMm, "heightMm", "The height");
+  requireNonNegative(densityKgPerM3, "densityKgPerM3", "The density");
+  return (lengthMm / MM_PER_M) * (widthMm / MM_PER_M) * (heightMm / MM_PER_M) * densityKgPerM3;
+}

@@ -21,7 +21,7 @@ import { convert } from "@/lib/coating-math/units";
 import { evaluateAreaFormula } from "@/lib/geometry/area-formula";
 import { GeometryError } from "@/lib/geometry/errors";
 import { MM_PER_M } from "@/lib/geometry/length-units";
-import { DENSITY_KG_PER_M3, massFromVolumeKg, netCoatedAreaM2, plateMassKg, type Material } from "@/lib/geometry/mass";
+import { DENSITY_KG_PER_M3, massFromVolumeKg, netCoatedAreaM2, plateMassKg, solidBoxMassKg, type Material } from "@/lib/geometry/mass";
 import { DIMENSION_TEMPLATES, findTemplate } from "@/lib/geometry/templates";
 import { MASS_ORIGINS, type AreaOrigin, type MassOrigin, type PartMaterial } from "@/lib/parts/part-fields";
 import { IMPORT_MAX_ROWS, partInputSchema, type ImportExisting, type ImportMode, type PartInput, type PartMeasureInput } from "@/lib/validation/parts";
@@ -81,6 +81,8 @@ export interface PartMeasure {
   meshId: string | null;
   /** a sentence on how the mass was found */
   massBasis: string;
+  /** a solid block of this metal filling the box: a mass above it cannot be right */
+  solidBoxMassKg: number;
 }
 
 export interface TemplateInfo {
@@ -256,6 +258,7 @@ export async function measurePart(input: PartMeasureInput): Promise<PartMeasure>
     formula,
     meshId: input.meshId ?? null,
     massBasis,
+    solidBoxMassKg: solidBoxMassKg(box.lengthMm, box.widthMm, box.heightMm, densityKgPerM3),
   };
 }
 

@@ -312,6 +312,23 @@ describe("POST /api/parts/measure", () => {
     expect(m.densityKgPerM3).toBe(2700);
     expect(await countParts()).toBe(before);
   });
+
+  it("gives the solid block of the box beside the mass, so an impossible entered area shows", async () => {
+    const res = await measurePost(
+      request("/api/parts/measure", {
+        method: "POST",
+        cookie: engineer,
+        body: { material: "steel", thicknessMm: 2, areaOrigin: "manual", areaM2: 2, lengthMm: 100, widthMm: 100, heightMm: 100 },
+      }),
+    );
+    expect(res.status).toBe(200);
+    const m = await json<{ massKg: number; solidBoxMassKg: number; massOrigin: string }>(res);
+    // hand working, steel 7850 kg/m³ (from memory): thin wall ½ × 2 m² × 0.002 m × 7850 = 15.7 kg;
+    // a solid 100 mm cube 0.001 m³ × 7850 = 7.85 kg, so this area cannot be right for this box
+    expect(m).toMatchObject({ massOrigin: "sheet" });
+    expect(m.massKg).toBeCloseTo(15.7, 9);
+    expect(m.solidBoxMassKg).toBeCloseTo(7.85, 9);
+  });
 });
 
 describe("CSV export and import", () => {

@@ -165,6 +165,21 @@ describe("parts catalogue", () => {
     await page.context().close();
   });
 
+  it("an entered area too large for the part's box is flagged beside the mass", async () => {
+    const page = await signInPage(browser, "engineer@bramblecote.test");
+    await page.goto(`${baseUrl()}/parts/new`);
+    await page.getByLabel("Enter the area").check();
+    await page.getByLabel("Section thickness (mm)").fill("2");
+    await page.getByLabel("Outside area (m²)").fill("2");
+    for (const l of ["Length (x) (mm)", "Width (y) (mm)", "Height (z) (mm)"]) await page.getByLabel(l).fill("100");
+    // ½ × 2 m² × 2 mm × 7850 kg/m³ = 15.7 kg against a solid 100 mm steel cube of 7.85 kg (hand working)
+    const flag = page.getByTestId("mass-implausible");
+    await expect.poll(() => flag.textContent(), { timeout: 15_000 }).toMatch(/more than a solid block .* \(7\.85 kg\)/);
+    await page.getByLabel("Outside area (m²)").fill("0.06");
+    await expect.poll(() => flag.count(), { timeout: 15_000 }).toBe(0);
+    await page.context().close();
+  });
+
   it("a CSV with one bad row is refused with that row's number and reason; the valid rows only on request", async () => {
     const page = await signInPage(browser, "engineer@bramblecote.test");
     const before = await partCount(page);

@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { GeometryError } from "@/lib/geometry/errors";
-import { DENSITY_KG_PER_M3, massFromVolumeKg, netCoatedAreaM2, plateMassKg } from "@/lib/geometry/mass";
+import { DENSITY_KG_PER_M3, massFromVolumeKg, netCoatedAreaM2, plateMassKg, solidBoxMassKg } from "@/lib/geometry/mass";
 
 // NIST SP 811 exact factors, typed here on purpose as the outside reference
 const KG_PER_LB = 0.45359237;
@@ -75,5 +75,23 @@ describe("coated area net of masking", () => {
         expect(net).toBeLessThanOrEqual(area);
       }),
     );
+  });
+});
+
+describe("solid block of the bounding box", () => {
+  it("a 1 ft cube of steel at 7850 kg/m³ weighs about 490 lb", () => {
+    // source: NIST SP 811 (1 ft = 0.3048 m, 1 lb = 0.45359237 kg); 0.3048³ m³ × 7850 kg/m³ = 222.28 kg = 490.05 lb
+    const ft = 12 * MM_PER_IN;
+    expect(solidBoxMassKg(ft, ft, ft, 7850) / KG_PER_LB).toBeCloseTo(490.05, 1);
+  });
+
+  it("a 100 mm cube: 1 L; a thin-wall estimate from 2 m² of 2 mm steel is twice what the block weighs", () => {
+    // hand working: 0.1³ m³ × 7850 kg/m³ = 7.85 kg; half of 2 m² × 0.002 m × 7850 kg/m³ = 15.7 kg
+    expect(solidBoxMassKg(100, 100, 100, 7850)).toBeCloseTo(7.85, 12);
+    expect(plateMassKg(1, 2, "steel")).toBeCloseTo(15.7, 12);
+  });
+
+  it("refuses a negative size", () => {
+    expect(() => solidBoxMassKg(-1, 1, 1, 7850)).toThrow(GeometryError);
   });
 });
