@@ -366,6 +366,7 @@ export async function runFilmChecks(runId: number, user: SessionUser): Promise<R
   const tests = (await q.filmTestsOfRun(db, runId)).map(testView);
   const gaugeNames = new Map((await q.listGaugeRows(db)).map((g) => [g.id, g.name]));
   const log = (await q.filmLogOfRun(db, runId)).map((l) => logView(l, coats, gaugeNames, user.unitSystem));
+  const lockReason = lockReasonFor(run.status, user);
   return {
     run: {
       id: run.id,
@@ -374,8 +375,8 @@ export async function runFilmChecks(runId: number, user: SessionUser): Promise<R
       partName: run.part_name,
       lineName: run.line_name,
       date: epochToDate(run.run_date),
-      locked: lockReasonFor(run.status, user) !== null,
-      lockReason: lockReasonFor(run.status, user),
+      locked: lockReason !== null,
+      lockReason,
     },
     coats,
     checks,

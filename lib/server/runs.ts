@@ -565,10 +565,15 @@ function rowValues(input: RunInput, plan: RunPlan) {
 
 /** Plans the input (a DomainError becomes a 400 naming the field) before anything is written. */
 async function planChecked(db: Db, input: RunInput): Promise<RunPlan> {
+  return (await planCheckedWithPart(db, input)).plan;
+}
+
+/** planChecked, with the part it was planned for (the preview words the racking with it). */
+async function planCheckedWithPart(db: Db, input: RunInput): Promise<{ plan: RunPlan; part: RunPartView }> {
   const { part, line, coatings } = await checkReferences(db, input);
   const measured = await measuredUtilisations(db, input.coats.map((c) => ({ lineId: line.id, coatingId: c.coatingId })), coatings);
   const saved = await findRackPlanFor(db, input.partId, input.lineId);
-  return planRun(planInput(storedFromInput(input), part, line, coatings, measured, saved));
+  return { plan: planRun(planInput(storedFromInput(input), part, line, coatings, measured, saved)), part };
 }
 
 const hours = (min: number) => formatSignificant(min / 60, 3);
@@ -600,7 +605,7 @@ export interface RunPreview {
  */
 export async function previewRun(input: RunInput, exceptRunId?: number, reader?: UnitSystem): Promise<RunPreview> {
   const db = await getDb();
-  const plan = await planChecked(db, input);
+  const { plan, part } = await planCheckedWithPart(db, input);
   const board = await getBoard(input.lineId, input.date);
   const s = board.shifts.find((x) => x.shift === input.shift);
   const others = (s?.runs ?? []).map((r) => ({ id: r.id, loadingMin: r.loadingMin, lineTimeMin: r.lineTimeMin, boothColours: r.coats.filter((c) => c.kind === "powder").map((c) => c.swatchHex) }));
@@ -620,8 +625,7 @@ export async function previewRun(input: RunInput, exceptRunId?: number, reader?:
   }
   // an edited run that the forecast counts is left in it: its own old figures stand in for the new
   if (reader) warnings.push(...(await stockWarnings(plan, input.date, exceptRunId ?? null, reader)));
-  const part = await findPartForRun(db, input.partId);
-  return { plan, warnings, rackingReason: runRackingReason(plan.racking, part ? toPartView(part) : null, reader ?? "metric") };
+  return { plan, warnings, rackingReason: runRackingReason(plan.racking, part, reader ?? "metric") };
 }
 
 export async function createRun(input: RunInput, user: SessionUser): Promise<SavedRun> {
